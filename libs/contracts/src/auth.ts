@@ -1,0 +1,124 @@
+import { z } from 'zod';
+
+/** The five roles of Keelson. */
+export const ROLES = ['admin', 'buyer', 'risk_manager', 'plant_manager', 'viewer'] as const;
+/** One of the five roles. */
+export type Role = (typeof ROLES)[number];
+/** Zod schema of a role. */
+export const roleSchema = z.enum(ROLES);
+
+/** Human labels for the roles, for screens and e-mails. */
+export const ROLE_LABELS: Record<Role, string> = {
+  admin: 'Administrator',
+  buyer: 'Buyer',
+  risk_manager: 'Risk manager',
+  plant_manager: 'Plant manager',
+  viewer: 'Viewer',
+};
+
+/** The header every state-changing request made with the session cookie must carry. */
+export const CSRF_HEADER = 'x-keelson-csrf';
+/** The value of {@link CSRF_HEADER}. */
+export const CSRF_HEADER_VALUE = '1';
+/** Name of the httpOnly session cookie. */
+export const SESSION_COOKIE = 'keelson_session';
+
+/** A user as the API shows it (never the password hash). */
+export interface UserDto {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  /** Plants a plant manager manages; empty for other roles. */
+  plantCodes: string[];
+  isActive: boolean;
+  /** True while an invitation is open and no password has been set. */
+  isInvitePending: boolean;
+  lastLoginAt: string | null;
+  createdAt: string;
+}
+
+/** POST /api/auth/login body. */
+export const loginRequestSchema = z.object({
+  email: z.string().trim().toLowerCase().email().max(254),
+  password: z.string().min(1).max(200),
+});
+/** POST /api/auth/login body. */
+export type LoginRequest = z.infer<typeof loginRequestSchema>;
+
+/** POST /api/auth/login answer. */
+export interface LoginResponse {
+  user: UserDto;
+  /** The same signed JWT as in the cookie, for scripts (Authorization: Bearer). */
+  token: string;
+}
+
+/** POST /api/auth/set-password body (accepting an invitation). */
+export const setPasswordRequestSchema = z.object({
+  token: z.string().min(10).max(200),
+  password: z.string().min(10, 'Use at least 10 characters.').max(200),
+});
+/** POST /api/auth/set-password body. */
+export type SetPasswordRequest = z.infer<typeof setPasswordRequestSchema>;
+
+/** GET /api/auth/invitations/:token answer. */
+export interface InvitationDto {
+  email: string;
+  name: string;
+  expiresAt: string;
+}
+
+/** POST /api/users/invitations body (admin). */
+export const inviteUserRequestSchema = z.object({
+  email: z.string().trim().toLowerCase().email().max(254),
+  name: z.string().trim().min(1).max(120),
+  role: roleSchema,
+  plantCodes: z.array(z.string().trim().min(1).max(40)).max(100).default([]),
+});
+/** POST /api/users/invitations body. */
+export type InviteUserRequest = z.infer<typeof inviteUserRequestSchema>;
+
+/** PATCH /api/users/:id body (admin). */
+export const updateUserRequestSchema = z
+  .object({
+    name: z.string().trim().min(1).max(120).optional(),
+    role: roleSchema.optional(),
+    plantCodes: z.array(z.string().trim().min(1).max(40)).max(100).optional(),
+    isActive: z.boolean().optional(),
+  })
+  .refine((body) => Object.keys(body).length > 0, 'Give at least one field to change.');
+/** PATCH /api/users/:id body. */
+export type UpdateUserRequest = z.infer<typeof updateUserRequestSchema>;
+
+/** A plant of the workspace (the organisation's sites, to which plant managers belong). */
+export interface PlantDto {
+  code: string;
+  name: string;
+  country: string;
+}
+
+/** A message caught by the local SMTP sink, as listed. */
+export interface MailSummaryDto {
+  id: number;
+  from: string;
+  to: string[];
+  subject: string;
+  receivedAt: string;
+}
+
+/** A message caught by the local SMTP sink, in full. */
+export interface MailMessageDto extends MailSummaryDto {
+  text: string | null;
+  html: string | null;
+}
+
+/** The error body of every failed API call. */
+export interface ApiErrorBody {
+  error: { code: string; message: string; details?: unknown };
+}
+
+/** A page of a list. */
+export interface Page<T> {
+  items: T[];
+  total: number;
+}
