@@ -18,3 +18,17 @@ export {
   type FieldRange,
   type TemplateField,
 } from './template-fields';
+export {
+  inspectCsvFiles,
+  inspectWorkbook,
+  type InspectedSheet,
+  type InspectOptions,
+  type SheetSuggestion,
+  type WorkbookInspection,
+} from './inspect-workbook';
+export {
+  ERROR_FILL_ARGB,
+  WARNING_FILL_ARGB,
+  writeErrorReport,
+  type ErrorReportOptions,
+} from './error-report';
