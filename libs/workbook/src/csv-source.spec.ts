@@ -54,7 +54,8 @@ describe('parseCsv', () => {
 
   it('reports an unclosed quote with the row it opened in', () => {
     expect(parseCsv('a,b\n1,"open\n2,3', 100)).toEqual({
-      error: 'a quoted field is never closed (a " is missing)', row: 2,
+      rows: [{ row: 1, cells: ['a', 'b'] }, { row: 2, cells: ['1', 'open\n2,3'] }],
+      problem: { message: 'a quoted field is never closed (a " is missing)', row: 2 },
     });
   });
 

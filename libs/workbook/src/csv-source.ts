@@ -7,8 +7,11 @@
  */
 import type { RawRow, RawSheet } from './raw-sheet';
 
-/** Rows of one CSV file, or the reason it could not be read. */
-export type CsvOutcome = { rows: RawRow[] } | { error: string; row: number };
+/** Rows of one CSV file, and the problem that made part of it unreadable, if any. */
+export interface CsvOutcome {
+  rows: RawRow[];
+  problem?: { message: string; row: number };
+}
 
 /** Whether the bytes look like text (no NUL or other control bytes besides tab and line ends). */
 export function isLikelyText(bytes: Uint8Array): boolean {
@@ -91,13 +94,13 @@ export function parseCsv(text: string, maxRows: number): CsvOutcome | { overLimi
       hasContent = true;
     }
   }
-  if (isQuoted) {
-    return { error: 'a quoted field is never closed (a " is missing)', row: quoteRow };
-  }
-  if ((hasContent || field !== '' || fields.length > 0) && endRecord()) {
+  if ((isQuoted || hasContent || field !== '' || fields.length > 0) && endRecord()) {
     return { overLimit: true };
   }
-  return { rows };
+  // An unclosed quote runs to the end of the file, as spreadsheet programs read it.
+  return isQuoted
+    ? { rows, problem: { message: 'a quoted field is never closed (a " is missing)', row: quoteRow } }
+    : { rows };
 }
 
 /** A sheet name from a file name: the base name without its directory and ".csv". */

@@ -154,10 +154,9 @@ function loadCsvList(
     if ('overLimit' in outcome) {
       return { format, sheets: [], errors: [fileError(rowLimitMessage(limits.maxRows))] };
     }
-    if ('error' in outcome) {
-      errors.push({ sheet: file.name, row: outcome.row, column: null, value: null,
-        message: outcome.error });
-      continue;
+    if (outcome.problem !== undefined) {
+      errors.push({ sheet: file.name, row: outcome.problem.row, column: null, value: null,
+        message: outcome.problem.message });
     }
     budget -= outcome.rows.length;
     sheets.push({ name: file.name, rows: outcome.rows });
