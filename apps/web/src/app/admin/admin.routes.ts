@@ -1,0 +1,19 @@
+import type { Routes } from '@angular/router';
+import { navigationGuard } from '../shell/navigation';
+
+/** The administrator's pages, each guarded by its entry in the navigation. */
+export const adminRoutes: Routes = [
+  { path: '', pathMatch: 'full', redirectTo: 'users' },
+  {
+    path: 'users',
+    title: 'Users · Keelson',
+    canActivate: [navigationGuard('admin/users')],
+    loadComponent: () => import('./users-page').then((m) => m.UsersPage),
+  },
+  {
+    path: 'mail',
+    title: 'Sent mail · Keelson',
+    canActivate: [navigationGuard('admin/mail')],
+    loadComponent: () => import('./mail-page').then((m) => m.MailPage),
+  },
+];

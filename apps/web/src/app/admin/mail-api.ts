@@ -1,0 +1,21 @@
+import { HttpClient, HttpParams } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import type { MailMessageDto, MailSummaryDto, Page } from '@keelson/contracts';
+import type { Observable } from 'rxjs';
+
+/** Data access for the messages caught by the local mail sink (admin only). */
+@Injectable({ providedIn: 'root' })
+export class MailApi {
+  private readonly http = inject(HttpClient);
+
+  /** GET /api/admin/mail: one page of messages, newest first. */
+  list(limit: number, offset: number): Observable<Page<MailSummaryDto>> {
+    const params = new HttpParams().set('limit', String(limit)).set('offset', String(offset));
+    return this.http.get<Page<MailSummaryDto>>('/api/admin/mail', { params });
+  }
+
+  /** GET /api/admin/mail/:id: one message with its text and HTML parts. */
+  get(id: number): Observable<MailMessageDto> {
+    return this.http.get<MailMessageDto>(`/api/admin/mail/${id}`);
+  }
+}

@@ -1,0 +1,123 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { MatButton } from '@angular/material/button';
+import { MatIcon } from '@angular/material/icon';
+import { MatPaginator, type PageEvent } from '@angular/material/paginator';
+import { MatProgressBar } from '@angular/material/progress-bar';
+import { MatTableModule } from '@angular/material/table';
+import { DomSanitizer, type SafeHtml } from '@angular/platform-browser';
+import type { MailMessageDto, MailSummaryDto, Page } from '@keelson/contracts';
+import { Subject, catchError, map, merge, of, switchMap } from 'rxjs';
+import { apiErrorMessage } from '../shared/api-error-message';
+import { MailApi } from './mail-api';
+
+/** Messages per page of the list. */
+export const MAIL_PAGE_SIZE = 25;
+
+type Loaded<T> = { value: T } | { error: string };
+
+/**
+ * "Sent mail": the messages the server's local mail sink caught (invitations and notices), newest
+ * first. Choosing one shows its text part and its HTML part, the latter in a fully sandboxed
+ * frame.
+ */
+@Component({
+  selector: 'kl-mail-page',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [DatePipe, MatButton, MatIcon, MatPaginator, MatProgressBar, MatTableModule],
+  templateUrl: './mail-page.html',
+  styleUrl: './mail-page.scss',
+})
+export class MailPage {
+  private readonly mailApi = inject(MailApi);
+  private readonly sanitizer = inject(DomSanitizer);
+  private readonly reloads = new Subject<void>();
+
+  protected readonly columns = ['receivedAt', 'to', 'subject'] as const;
+  protected readonly pageSize = MAIL_PAGE_SIZE;
+  protected readonly pageIndex = signal(0);
+  protected readonly messages = signal<MailSummaryDto[]>([]);
+  protected readonly total = signal(0);
+  protected readonly isLoading = signal(true);
+  protected readonly listError = signal<string | null>(null);
+  protected readonly selectedId = signal<number | null>(null);
+  protected readonly selected = signal<MailMessageDto | null>(null);
+  protected readonly detailError = signal<string | null>(null);
+  protected readonly isDetailLoading = signal(false);
+  /**
+   * The HTML part for the frame's srcdoc. Angular's sanitizer would strip the message's own
+   * styling, which is what an administrator checks here; the frame's empty `sandbox` attribute
+   * is what keeps the content inert: no scripts, no forms, no plugins, a unique origin with no
+   * access to Keelson's cookies or DOM, and no navigation of this page.
+   */
+  protected readonly selectedHtml = computed<SafeHtml | null>(() => {
+    const html = this.selected()?.html;
+    return html ? this.sanitizer.bypassSecurityTrustHtml(html) : null;
+  });
+
+  constructor() {
+    merge(toObservable(this.pageIndex), this.reloads.pipe(map(() => this.pageIndex())))
+      .pipe(
+        switchMap((pageIndex) => {
+          this.isLoading.set(true);
+          return this.mailApi.list(MAIL_PAGE_SIZE, pageIndex * MAIL_PAGE_SIZE).pipe(
+            map((page): Loaded<Page<MailSummaryDto>> => ({ value: page })),
+            catchError((error: unknown) => of({ error: apiErrorMessage(error) })),
+          );
+        }),
+        takeUntilDestroyed(),
+      )
+      .subscribe((result) => {
+        this.isLoading.set(false);
+        if ('error' in result) {
+          this.listError.set(result.error);
+          return;
+        }
+        this.listError.set(null);
+        this.messages.set(result.value.items);
+        this.total.set(result.value.total);
+      });
+
+    toObservable(this.selectedId)
+      .pipe(
+        switchMap((id) => {
+          this.detailError.set(null);
+          if (id === null) {
+            return of<Loaded<MailMessageDto | null>>({ value: null });
+          }
+          this.isDetailLoading.set(true);
+          return this.mailApi.get(id).pipe(
+            map((message): Loaded<MailMessageDto | null> => ({ value: message })),
+            catchError((error: unknown) => of({ error: apiErrorMessage(error) })),
+          );
+        }),
+        takeUntilDestroyed(),
+      )
+      .subscribe((result) => {
+        this.isDetailLoading.set(false);
+        if ('error' in result) {
+          this.selected.set(null);
+          this.detailError.set(result.error);
+          return;
+        }
+        this.selected.set(result.value);
+      });
+  }
+
+  protected open(message: MailSummaryDto): void {
+    this.selectedId.set(message.id);
+  }
+
+  protected close(): void {
+    this.selectedId.set(null);
+  }
+
+  protected refresh(): void {
+    this.reloads.next();
+  }
+
+  protected onPage(event: PageEvent): void {
+    this.pageIndex.set(event.pageIndex);
+  }
+}

@@ -1,0 +1,49 @@
+import type { Routes } from '@angular/router';
+import { signedInGuard, signedOutGuard } from './auth/auth-guard';
+import { navigationGuard } from './shell/navigation';
+
+/**
+ * Top-level routes. Pages inside the signed-in shell are lazy and guarded by their entry in
+ * shell/navigation.ts (`navigationGuard(path)`), so the roles live in one place.
+ */
+export const routes: Routes = [
+  {
+    path: 'sign-in',
+    title: 'Sign in · Keelson',
+    canActivate: [signedOutGuard],
+    loadComponent: () => import('./auth/sign-in-page').then((m) => m.SignInPage),
+  },
+  {
+    path: 'set-password',
+    title: 'Choose your password · Keelson',
+    loadComponent: () => import('./auth/set-password-page').then((m) => m.SetPasswordPage),
+  },
+  {
+    path: '',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./shell/shell').then((m) => m.Shell),
+    children: [
+      { path: '', pathMatch: 'full', redirectTo: 'home' },
+      {
+        path: 'home',
+        title: 'Home · Keelson',
+        canActivate: [navigationGuard('home')],
+        loadComponent: () => import('./home/home-page').then((m) => m.HomePage),
+      },
+      {
+        path: 'admin',
+        loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes),
+      },
+      {
+        path: 'forbidden',
+        title: 'Not open to your role · Keelson',
+        loadComponent: () => import('./errors/forbidden-page').then((m) => m.ForbiddenPage),
+      },
+    ],
+  },
+  {
+    path: '**',
+    title: 'Page not found · Keelson',
+    loadComponent: () => import('./errors/not-found-page').then((m) => m.NotFoundPage),
+  },
+];

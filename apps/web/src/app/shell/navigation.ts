@@ -1,0 +1,51 @@
+import type { CanActivateFn } from '@angular/router';
+import { ROLES, type Role } from '@keelson/contracts';
+import { roleGuard } from '../auth/auth-guard';
+
+/** One destination of the main navigation. */
+export interface NavigationEntry {
+  /** What the sidenav shows (and the link's accessible name). */
+  readonly label: string;
+  /** A Material Symbols ligature. */
+  readonly icon: string;
+  /** The route path, without a leading slash. */
+  readonly path: string;
+  /** The roles that may open it; the sidenav and the route guard both read this. */
+  readonly roles: readonly Role[];
+}
+
+/**
+ * The main navigation, in display order: the single list both the sidenav and the route guards
+ * read, so what a role sees and what it may open cannot drift apart. A new screen adds one line
+ * here and one lazy route in app.routes.ts that uses `navigationGuard(path)`.
+ */
+export const NAVIGATION = [
+  { label: 'Home', icon: 'home', path: 'home', roles: ROLES },
+  { label: 'Users', icon: 'manage_accounts', path: 'admin/users', roles: ['admin'] },
+  { label: 'Sent mail', icon: 'outgoing_mail', path: 'admin/mail', roles: ['admin'] },
+] as const satisfies readonly NavigationEntry[];
+
+/** A path that has an entry in {@link NAVIGATION}. */
+export type NavigationPath = (typeof NAVIGATION)[number]['path'];
+
+/** The entries a role may use, in display order. */
+export function navigationFor(role: Role | null): readonly NavigationEntry[] {
+  if (role === null) {
+    return [];
+  }
+  return NAVIGATION.filter((entry: NavigationEntry) => entry.roles.includes(role));
+}
+
+/** The roles allowed on a navigation path; throws when the path has no entry. */
+export function rolesFor(path: NavigationPath): readonly Role[] {
+  const entry = NAVIGATION.find((candidate) => candidate.path === path);
+  if (!entry) {
+    throw new Error(`navigation: no entry for path "${path}" in NAVIGATION (shell/navigation.ts).`);
+  }
+  return entry.roles;
+}
+
+/** The route guard for a navigation path: lets through exactly the roles of its entry. */
+export function navigationGuard(path: NavigationPath): CanActivateFn {
+  return roleGuard(...rolesFor(path));
+}
