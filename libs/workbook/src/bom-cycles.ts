@@ -91,7 +91,8 @@ function stronglyConnected(children: ReadonlyMap<string, string[]>): Map<string,
       work.pop();
       const parent = work[work.length - 1];
       if (parent !== undefined) {
-        low.set(parent.node, Math.min(low.get(parent.node) as number, low.get(frame.node) as number));
+        const lowest = Math.min(low.get(parent.node) as number, low.get(frame.node) as number);
+        low.set(parent.node, lowest);
       }
       if (low.get(frame.node) === index.get(frame.node)) {
         let member: string | undefined;

@@ -101,8 +101,11 @@ export function readText(value: RawValue): CellReading<string> {
   return isBlank(value) ? { value: null } : { value: displayText(value) };
 }
 
-function faultMessage(fault: string): string {
-  return fault.startsWith('#') ? `the cell holds the error value ${fault}` : `the cell holds a ${fault}`;
+/** The message for a cell holding a fault (a formula error value or a missing result). */
+export function faultMessage(fault: string): string {
+  return fault.startsWith('#')
+    ? `the cell holds the error value ${fault}`
+    : `the cell holds a ${fault}`;
 }
 
 function numberHint(text: string): string {

@@ -29,7 +29,8 @@ describe('parseCsv', () => {
   });
 
   it('treats CRLF, LF and CR alike and does not add a record for the final line end', () => {
-    expect(rowsOf('a\r\nb\nc\rd\r\n').map((row) => row.cells)).toEqual([['a'], ['b'], ['c'], ['d']]);
+    const cells = rowsOf('a\r\nb\nc\rd\r\n').map((row) => row.cells);
+    expect(cells).toEqual([['a'], ['b'], ['c'], ['d']]);
   });
 
   it('does not split on semicolons', () => {

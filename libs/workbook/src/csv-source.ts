@@ -5,13 +5,15 @@
  * as one column and its headers will not match. Row numbers are record numbers, as a
  * spreadsheet program shows them when it opens the file.
  */
-import type { RawRow, RawSheet } from './raw-sheet';
+import type { RawRow } from './raw-sheet';
 
 /** Rows of one CSV file, and the problem that made part of it unreadable, if any. */
 export interface CsvOutcome {
   rows: RawRow[];
   problem?: { message: string; row: number };
 }
+
+const UNCLOSED_QUOTE = 'a quoted field is never closed (a " is missing)';
 
 /** Whether the bytes look like text (no NUL or other control bytes besides tab and line ends). */
 export function isLikelyText(bytes: Uint8Array): boolean {
@@ -27,7 +29,7 @@ export function isLikelyText(bytes: Uint8Array): boolean {
   return true;
 }
 
-/** Decodes text: UTF-8 (with or without a byte-order mark), UTF-16 with a mark, else Windows-1252. */
+/** Decodes text: UTF-8 (with or without its mark), UTF-16 with a mark, else Windows-1252. */
 export function decodeText(bytes: Uint8Array): string {
   if (bytes[0] === 0xff && bytes[1] === 0xfe) {
     return new TextDecoder('utf-16le').decode(bytes.subarray(2));
@@ -35,7 +37,8 @@ export function decodeText(bytes: Uint8Array): string {
   if (bytes[0] === 0xfe && bytes[1] === 0xff) {
     return new TextDecoder('utf-16be').decode(bytes.subarray(2));
   }
-  const body = bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? bytes.subarray(3) : bytes;
+  const hasMark = bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf;
+  const body = hasMark ? bytes.subarray(3) : bytes;
   try {
     return new TextDecoder('utf-8', { fatal: true }).decode(body);
   } catch {
@@ -99,7 +102,7 @@ export function parseCsv(text: string, maxRows: number): CsvOutcome | { overLimi
   }
   // An unclosed quote runs to the end of the file, as spreadsheet programs read it.
   return isQuoted
-    ? { rows, problem: { message: 'a quoted field is never closed (a " is missing)', row: quoteRow } }
+    ? { rows, problem: { message: UNCLOSED_QUOTE, row: quoteRow } }
     : { rows };
 }
 
@@ -107,11 +110,6 @@ export function parseCsv(text: string, maxRows: number): CsvOutcome | { overLimi
 export function sheetNameOfFile(fileName: string): string {
   const base = fileName.split(/[\\/]/u).pop() ?? fileName;
   return base.replace(/\.csv$/iu, '');
-}
-
-/** An empty raw sheet, for a file that holds no records. */
-export function emptySheet(name: string): RawSheet {
-  return { name, rows: [] };
 }
 
 function hasUtf16Mark(bytes: Uint8Array): boolean {

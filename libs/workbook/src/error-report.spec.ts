@@ -53,9 +53,11 @@ describe('writeErrorReport', () => {
     ]);
     const products = report.getWorksheet('Products') as ExcelJS.Worksheet;
     expect(fillOf(products.getCell('D2'))).toBe(ERROR_FILL_ARGB);
-    expect(noteOf(products.getCell('D2'))).toContain('weekly_revenue: expected a number; got "12,00"');
+    expect(noteOf(products.getCell('D2')))
+      .toContain('weekly_revenue: expected a number; got "12,00"');
     expect(fillOf(products.getCell('B3'))).toBe(ERROR_FILL_ARGB);
-    expect(noteOf(products.getCell('B3'))).toBe('plant_code "P9" is not a plant of the Plants sheet');
+    expect(noteOf(products.getCell('B3')))
+      .toBe('plant_code "P9" is not a plant of the Plants sheet');
     expect(fillOf(products.getCell('A4'))).toBe(WARNING_FILL_ARGB);
     expect(fillOf(products.getCell('C2'))).toBeUndefined();
     // The buyer's own content is kept.

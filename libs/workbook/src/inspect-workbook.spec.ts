@@ -54,7 +54,8 @@ describe('inspectWorkbook', () => {
     };
     const inspection = await inspectWorkbook(await buildXlsx(sheets));
     expect(inspection.missingSheets).toEqual(['BOM', 'Suppliers', 'Sourcing']);
-    expect(inspection.suggestions.Products.missingColumns).toEqual(['plant_code', 'weekly_revenue']);
+    expect(inspection.suggestions.Products.missingColumns)
+      .toEqual(['plant_code', 'weekly_revenue']);
     expect(inspection.suggestions.Stock).toMatchObject({ isRequired: false, sheetName: null });
   });
 

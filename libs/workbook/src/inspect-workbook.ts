@@ -10,7 +10,14 @@ import { loadCsvFiles, loadSource, type CsvFile, type LoadedSource } from './fil
 import { resolveLimits, type WorkbookLimits } from './limits';
 import { nameKey } from './name-key';
 import { fileError } from './problems';
-import { displayText, isBlank, isBlankRow, reportedValue, type RawRow, type RawSheet } from './raw-sheet';
+import {
+  displayText,
+  isBlank,
+  isBlankRow,
+  reportedValue,
+  type RawRow,
+  type RawSheet,
+} from './raw-sheet';
 import type { WorkbookMapping } from './sheet-layout';
 import { REQUIRED_SHEETS, TEMPLATE_FIELDS } from './template-fields';
 
@@ -93,7 +100,8 @@ function inspectionOf(source: LoadedSource, mapping: WorkbookMapping | undefined
     const chosen = mapping?.[template]?.sheetName;
     const byName = source.sheets.find((sheet) => chosen !== undefined
       ? nameKey(sheet.name) === nameKey(chosen)
-      : [template, ...SHEET_ALIASES[template]].some((name) => nameKey(name) === nameKey(sheet.name)));
+      : [template, ...SHEET_ALIASES[template]]
+        .some((name) => nameKey(name) === nameKey(sheet.name)));
     if (byName !== undefined) {
       claimed.add(byName.name);
     }
@@ -133,7 +141,8 @@ function fillColumns(
   const used = new Set<string>();
   for (const { field } of TEMPLATE_FIELDS[template]) {
     const wanted = chosen[field] !== undefined ? [nameKey(chosen[field])] : fieldKeys(field);
-    const header = wanted.map((key) => headers.find((text) => nameKey(text) === key && !used.has(text)))
+    const header = wanted
+      .map((key) => headers.find((text) => nameKey(text) === key && !used.has(text)))
       .find((text) => text !== undefined);
     if (header !== undefined) {
       suggestion.columns[field] = header;

@@ -33,7 +33,8 @@ export function checkKinds(
     const clash = earlier(product.code, [['plant', codes.plants]]);
     if (clash !== undefined) {
       errors.push(makeError('Products', product.row, 'product_code', product.code,
-        `product_code "${product.code}" is already a plant code${rowNote(clash[1].get(product.code), 'Plants')}; ` +
+        `product_code "${product.code}" is already a plant code` +
+        `${rowNote(clash[1].get(product.code), 'Plants')}; ` +
         'a code may name only one kind'));
     }
   }

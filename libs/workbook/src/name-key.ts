@@ -8,11 +8,6 @@ export function nameKey(name: string): string {
   return name.normalize('NFC').replace(/[\s_]+/gu, '').toLowerCase();
 }
 
-/** Whether two names match once compared by their keys. */
-export function isSameName(left: string, right: string): boolean {
-  return nameKey(left) === nameKey(right);
-}
-
 /** The 1-based column number as letters: 1 -> "A", 27 -> "AA". */
 export function columnLetters(column: number): string {
   let letters = '';

@@ -31,7 +31,8 @@ export function isFault(value: RawValue): value is CellFault {
 
 /** Whether a value counts as blank: empty, or text of only white space. */
 export function isBlank(value: RawValue | undefined): boolean {
-  return value === null || value === undefined || (typeof value === 'string' && value.trim() === '');
+  return value === null || value === undefined ||
+    (typeof value === 'string' && value.trim() === '');
 }
 
 /** Whether every cell of a row is blank (such rows are skipped but keep their numbers). */

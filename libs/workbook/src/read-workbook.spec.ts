@@ -15,7 +15,7 @@ import { readWorkbook } from './read-workbook';
 
 const PNG_MAGIC = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
 
-/** Deterministic pseudo-random bytes (a 32-bit linear congruential generator, Numerical Recipes). */
+/** Deterministic pseudo-random bytes (the 32-bit LCG constants of Numerical Recipes). */
 function randomBytes(length: number, seed: number): Uint8Array {
   const bytes = new Uint8Array(length);
   let state = seed >>> 0;

@@ -53,7 +53,10 @@ const NON_EMPTY_SHEETS: readonly SheetName[] = ['Plants', 'Products'];
  * by name; a PNG or random bytes give one error "not a spreadsheet ...". Bad input never
  * throws: it becomes located errors, with sheet, row and column null where none applies.
  */
-export async function readWorkbook(data: Uint8Array, options: ReadOptions = {}): Promise<ReadResult> {
+export async function readWorkbook(
+  data: Uint8Array,
+  options: ReadOptions = {},
+): Promise<ReadResult> {
   try {
     const limits = resolveLimits(options.limits);
     return resultOf(await loadSource(data, limits, options.fileName), options.mapping);
@@ -91,7 +94,8 @@ function resultOf(source: LoadedSource, mapping: WorkbookMapping | undefined): R
   const { layouts, errors: layoutErrors } = locateSheets(source.sheets, mapping);
   errors.push(...layoutErrors);
   if (source.sheets.length > 0 && Object.keys(layouts).length === 0) {
-    errors.push(fileError(`the file holds none of the template's sheets (${SHEET_NAMES.join(', ')})`));
+    const names = SHEET_NAMES.join(', ');
+    errors.push(fileError(`the file holds none of the template's sheets (${names})`));
   }
   const { model, counts, errors: cellErrors } = readRecords(layouts);
   errors.push(...cellErrors);

@@ -6,7 +6,14 @@
  * withheld anyway while any error remains.
  */
 import type { SheetName, SupplyModel, WorkbookError } from '@keelson/contracts';
-import { readCode, readNumber, readText, readYesNo, type CellReading } from './cell-values';
+import {
+  faultMessage,
+  readCode,
+  readNumber,
+  readText,
+  readYesNo,
+  type CellReading,
+} from './cell-values';
 import { cellReference } from './name-key';
 import { isBlankRow, isFault, reportedValue, displayText, isBlank } from './raw-sheet';
 import type { RawValue } from './raw-sheet';
@@ -142,7 +149,7 @@ function readAttributes(
     if (isFault(value)) {
       errors.push({
         sheet: layout.sheet.name, row, column: extra.header, value: value.fault,
-        message: `${extra.header}: the cell holds ${value.fault.startsWith('#') ? 'the error value ' : 'a '}${value.fault}`,
+        message: `${extra.header}: ${faultMessage(value.fault)}`,
         cell: cellReference(extra.index + 1, row),
       });
       continue;

@@ -125,7 +125,3 @@ export const SHEET_HELP: Record<SheetName, string> = {
   Stock: 'Optional. Inventory of an item at a plant, in weeks of demand.',
 };
 
-/** The template field of `sheet` named `field`, if there is one. */
-export function findField(sheet: SheetName, field: string): TemplateField | undefined {
-  return TEMPLATE_FIELDS[sheet].find((entry) => entry.field === field);
-}

@@ -6,7 +6,12 @@
 import { SHEET_NAMES } from '@keelson/contracts';
 import type ExcelJS from 'exceljs';
 import { DEFAULT_WORKBOOK_LIMITS, formatBytes } from './limits';
-import { REQUIRED_SHEETS, SHEET_HELP, TEMPLATE_FIELDS, type TemplateField } from './template-fields';
+import {
+  REQUIRED_SHEETS,
+  SHEET_HELP,
+  TEMPLATE_FIELDS,
+  type TemplateField,
+} from './template-fields';
 
 const KIND_TEXT: Record<TemplateField['kind'], string> = {
   code: 'code (text; a whole number such as 1001 is read as "1001")',
@@ -56,7 +61,10 @@ export function writeReadMe(worksheet: ExcelJS.Worksheet): void {
 
 function blankMeaning(field: TemplateField): string {
   if (field.default !== undefined) {
-    return typeof field.default === 'boolean' ? (field.default ? 'yes' : 'no') : String(field.default);
+    if (typeof field.default === 'boolean') {
+      return field.default ? 'yes' : 'no';
+    }
+    return String(field.default);
   }
   if (field.required) {
     return 'not allowed';

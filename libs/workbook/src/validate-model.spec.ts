@@ -130,7 +130,8 @@ describe('validateModel: kinds and references (spec 8.8)', () => {
     ['Products.plant_code not a plant', (m: SupplyModel) => { m.products[0]!.plantCode = 'P7'; },
       [['Products', 2, 'plant_code', 'P7']]],
     ['Sourcing.buyer_code neither plant nor supplier',
-      (m: SupplyModel) => { m.sourcing[3]!.buyerCode = 'X1'; }, [['Sourcing', 5, 'buyer_code', 'X1']]],
+      (m: SupplyModel) => { m.sourcing[3]!.buyerCode = 'X1'; },
+      [['Sourcing', 5, 'buyer_code', 'X1']]],
     ['Sourcing.supplier_code not a supplier',
       (m: SupplyModel) => { m.sourcing[2]!.supplierCode = 'S9'; },
       [['Sourcing', 4, 'supplier_code', 'S9']]],
@@ -213,7 +214,8 @@ describe('validateModel: BOM cycles (spec 8.10)', () => {
     model.bom.push({ parentCode: 'L50000', childCode: 'L0', qtyPer: 1 });
     const { errors } = validateModel(model);
     expect(errors).toHaveLength(50_001);
-    expect(errors[0]?.message).toMatch(/^BOM cycle: L\d+ -> L\d+ lies on a loop among 50001 codes/u);
+    expect(errors[0]?.message)
+      .toMatch(/^BOM cycle: L\d+ -> L\d+ lies on a loop among 50001 codes/u);
   });
 });
 

@@ -55,7 +55,7 @@ describe('writeWorkbook', () => {
     ]);
   });
 
-  it('writes the template sheets in order, headers in row 1 and attributes after them', async () => {
+  it('writes the sheets in order, headers in row 1, attributes after them', async () => {
     const workbook = await openWorkbook(await writeWorkbook(richModel()));
     expect(workbook.worksheets.map((sheet) => sheet.name)).toEqual([...SHEET_NAMES]);
     const plants = workbook.getWorksheet('Plants') as ExcelJS.Worksheet;

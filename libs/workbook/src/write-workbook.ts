@@ -70,7 +70,8 @@ function addTemplateSheet(
   const worksheet = workbook.addWorksheet(sheet, { views: [{ state: 'frozen', ySplit: 1 }] });
   const fields = TEMPLATE_FIELDS[sheet];
   worksheet.columns = [
-    ...fields.map((field) => ({ header: field.field, width: Math.max(14, field.field.length + 4) })),
+    ...fields.map((field) => ({ header: field.field, width: Math.max(14, field.field.length + 4),
+    })),
     ...extraHeaders.map((header) => ({ header, width: Math.max(12, header.length + 4) })),
   ];
   const header = worksheet.getRow(1);

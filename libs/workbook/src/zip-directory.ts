@@ -102,7 +102,9 @@ function readZip64End(
     return null;
   }
   const record = readUint64(view, locator + 8);
-  if (record === null || record + 56 > locator || view.getUint32(record, true) !== ZIP64_END_RECORD) {
+  const isRecord = record !== null && record + 56 <= locator &&
+    view.getUint32(record, true) === ZIP64_END_RECORD;
+  if (record === null || !isRecord) {
     return null;
   }
   const count = readUint64(view, record + 32);
