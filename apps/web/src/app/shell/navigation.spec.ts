@@ -1,0 +1,47 @@
+import { ROLES, type Role } from '@keelson/contracts';
+import { describe, expect, it } from 'vitest';
+import { NAVIGATION, type NavigationPath, navigationFor, rolesFor } from './navigation';
+
+// Expected entries per role, written out by hand from the product brief (Home for all; Users and
+// Sent mail for administrators only), not derived from NAVIGATION itself.
+const EXPECTED: Record<Role, string[]> = {
+  admin: ['Home', 'Users', 'Sent mail'],
+  buyer: ['Home'],
+  risk_manager: ['Home'],
+  plant_manager: ['Home'],
+  viewer: ['Home'],
+};
+
+describe('navigationFor', () => {
+  for (const role of ROLES) {
+    it(`shows the ${role} exactly its entries, in order`, () => {
+      expect(navigationFor(role).map((entry) => entry.label)).toEqual(EXPECTED[role]);
+    });
+  }
+
+  it('shows nothing to a signed-out visitor', () => {
+    expect(navigationFor(null)).toEqual([]);
+  });
+});
+
+describe('NAVIGATION', () => {
+  it('has unique paths without a leading slash and at least one role per entry', () => {
+    const paths = NAVIGATION.map((entry) => entry.path);
+    expect(new Set(paths).size).toBe(paths.length);
+    for (const entry of NAVIGATION) {
+      expect(entry.path.startsWith('/')).toBe(false);
+      expect(entry.roles.length).toBeGreaterThan(0);
+    }
+  });
+});
+
+describe('rolesFor', () => {
+  it('gives the roles of an entry', () => {
+    expect(rolesFor('admin/users')).toEqual(['admin']);
+    expect([...rolesFor('home')].sort()).toEqual([...ROLES].sort());
+  });
+
+  it('throws, naming the path, for a path with no entry', () => {
+    expect(() => rolesFor('nowhere' as NavigationPath)).toThrow(/no entry for path "nowhere"/);
+  });
+});
