@@ -5,7 +5,7 @@
  */
 import { SHEET_NAMES, type SupplyModel } from '@keelson/contracts';
 import ExcelJS from 'exceljs';
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { smallNetworkModel } from './fixture-workbooks';
 import { readWorkbook } from './read-workbook';
 import { TEMPLATE_FIELDS } from './template-fields';
@@ -66,6 +66,19 @@ describe('writeWorkbook', () => {
     const suppliers = workbook.getWorksheet('Suppliers') as ExcelJS.Worksheet;
     expect(suppliers.getCell('H2').value).toBe('yes');
     expect(suppliers.getCell('F3').value).toBeNull();
+  });
+
+  afterEach(() => {
+    vi.useRealTimers();
+  });
+
+  it('gives byte-identical files for the same model written at different times', async () => {
+    vi.useFakeTimers({ toFake: ['Date'] });
+    vi.setSystemTime(new Date(Date.UTC(2025, 2, 3, 10, 0, 0)));
+    const first = await writeWorkbook(richModel());
+    vi.setSystemTime(new Date(Date.UTC(2026, 7, 9, 17, 31, 45)));
+    const second = await writeWorkbook(richModel());
+    expect(second).toEqual(first);
   });
 
   it('writes an empty model as header rows only', async () => {

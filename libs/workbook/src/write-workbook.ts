@@ -8,6 +8,7 @@ import ExcelJS from 'exceljs';
 import { recordsBySheet } from './model-checks';
 import { TEMPLATE_FIELDS, type TemplateField } from './template-fields';
 import { writeReadMe } from './template-read-me';
+import { withFixedTimestamps } from './zip-timestamps';
 
 const HEADER_FILL: ExcelJS.Fill = {
   type: 'pattern', pattern: 'solid', fgColor: { argb: 'FFDCE6F1' },
@@ -16,7 +17,7 @@ const REQUIRED_FILL: ExcelJS.Fill = {
   type: 'pattern', pattern: 'solid', fgColor: { argb: 'FFB8CCE4' },
 };
 
-/** Writes a model in the template's format (.xlsx bytes). */
+/** Writes a model in the template's format (.xlsx bytes); the same model gives the same bytes. */
 export async function writeWorkbook(model: SupplyModel): Promise<Uint8Array> {
   const workbook = newWorkbook();
   const records = new Map(recordsBySheet(model));
@@ -50,7 +51,7 @@ export async function writeTemplate(): Promise<Uint8Array> {
 /** A workbook's bytes as a Uint8Array. */
 export async function toBytes(workbook: ExcelJS.Workbook): Promise<Uint8Array> {
   const buffer = await workbook.xlsx.writeBuffer();
-  return new Uint8Array(buffer as ArrayBuffer);
+  return withFixedTimestamps(new Uint8Array(buffer as ArrayBuffer));
 }
 
 function newWorkbook(): ExcelJS.Workbook {
