@@ -14,6 +14,8 @@ export interface ZipEntry {
   isEncrypted: boolean;
   compressedSize: number;
   uncompressedSize: number;
+  /** The CRC-32 of the uncompressed data, as the directory declares it. */
+  crc32: number;
   /** Offset of the entry's compressed bytes in the archive. */
   dataOffset: number;
 }
@@ -128,6 +130,7 @@ function readCentralHeader(view: DataView, at: number, limit: number): CentralHe
   }
   const flags = view.getUint16(at + 8, true);
   const method = view.getUint16(at + 10, true);
+  const crc32 = view.getUint32(at + 16, true);
   let compressedSize = view.getUint32(at + 20, true);
   let uncompressedSize = view.getUint32(at + 24, true);
   const nameLength = view.getUint16(at + 28, true);
@@ -171,7 +174,9 @@ function readCentralHeader(view: DataView, at: number, limit: number): CentralHe
   if (![compressedSize, uncompressedSize, localOffset].every(Number.isFinite)) {
     return `the sizes of "${name}" are unreadable`;
   }
-  const entry = { name, method, isEncrypted: (flags & 1) === 1, compressedSize, uncompressedSize };
+  const entry = {
+    name, method, isEncrypted: (flags & 1) === 1, compressedSize, uncompressedSize, crc32,
+  };
   return { entry, localOffset, next };
 }
 

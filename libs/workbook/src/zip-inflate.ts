@@ -5,6 +5,7 @@
  * size, so the later parser only ever sees archives whose real size is within the limits.
  */
 import { Inflate } from 'fflate';
+import { Crc32 } from './crc32';
 import type { ZipEntry } from './zip-directory';
 
 /** Bytes handed to the inflater per step; bounds one step's output to about 1 000 times this. */
@@ -35,6 +36,11 @@ export function inflateEntry(
     if (source.length !== entry.uncompressedSize) {
       return { error: sizeMismatch(entry) };
     }
+    const checksum = new Crc32();
+    checksum.update(source);
+    if (checksum.digest() !== entry.crc32) {
+      return { error: checksumMismatch(entry) };
+    }
     options.onChunk?.(source);
     return { bytes: options.isCollected ? source : null, size: source.length };
   }
@@ -42,6 +48,7 @@ export function inflateEntry(
     return { error: `"${entry.name}" uses an unsupported compression method (${entry.method})` };
   }
   const chunks: Uint8Array[] = [];
+  const checksum = new Crc32();
   let size = 0;
   let isOversized = false;
   const inflater = new Inflate((chunk) => {
@@ -50,6 +57,7 @@ export function inflateEntry(
       isOversized = true;
       return;
     }
+    checksum.update(chunk);
     options.onChunk?.(chunk);
     if (options.isCollected) {
       chunks.push(chunk.slice());
@@ -69,6 +77,9 @@ export function inflateEntry(
   if (isOversized || size !== entry.uncompressedSize) {
     return { error: sizeMismatch(entry) };
   }
+  if (checksum.digest() !== entry.crc32) {
+    return { error: checksumMismatch(entry) };
+  }
   return { bytes: options.isCollected ? joinChunks(chunks, size) : null, size };
 }
 
@@ -77,6 +88,10 @@ function sizeMismatch(entry: ZipEntry): string {
     `the zip archive is corrupt or crafted: "${entry.name}" does not unpack to the ` +
     `${entry.uncompressedSize} bytes its directory declares`
   );
+}
+
+function checksumMismatch(entry: ZipEntry): string {
+  return `the zip archive is corrupt: the checksum of "${entry.name}" does not match`;
 }
 
 function joinChunks(chunks: readonly Uint8Array[], size: number): Uint8Array {

@@ -125,3 +125,21 @@ describe('readZipDirectory', () => {
     });
   });
 });
+
+describe('damaged workbooks', () => {
+  it('never throws on randomly damaged copies of a valid workbook', async () => {
+    const xlsx = await buildXlsx(smallNetworkSheets());
+    // Seeded 32-bit linear congruential generator (Numerical Recipes constants).
+    let state = 20240601;
+    const next = () => (state = (Math.imul(state, 1664525) + 1013904223) >>> 0);
+    for (let trial = 0; trial < 80; trial += 1) {
+      const damaged = xlsx.slice();
+      for (let flip = 0; flip <= next() % 4; flip += 1) {
+        damaged[next() % damaged.length] = next() & 0xff;
+      }
+      const result = await readWorkbook(damaged);
+      // Either a model with no errors, or no model with at least one located error.
+      expect(result.model === null).toBe(result.errors.length > 0);
+    }
+  });
+});
