@@ -96,7 +96,8 @@ export function checkDuplicates(model: SupplyModel, makeError: MakeError): Workb
     const seen = new Map<string, AnyRecord>();
     for (const record of records) {
       const parts = properties.map((property) => String(record[property]));
-      const key = JSON.stringify(parts);
+      // Codes never hold NUL (cells are text), so it separates the parts safely.
+      const key = parts.join('\u0000');
       const first = seen.get(key);
       if (first === undefined) {
         seen.set(key, record);

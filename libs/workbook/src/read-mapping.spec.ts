@@ -58,6 +58,7 @@ describe('readWorkbook with a mapping', () => {
       .toEqual([
         ['Plants', 1, 'plant_code', 'the header "Werk" chosen for plant_code is not in row 1'],
         ['BOM', null, null, 'the sheet "Stückliste" chosen for BOM is not in the file'],
+        ['Stock', null, null, 'the sheet "Lager" chosen for Stock is not in the file'],
       ]);
   });
 

@@ -83,7 +83,9 @@ function findSheet(
       message: `sheets ${names} both match the sheet ${template}; rename one of them` });
     return undefined;
   }
-  if (matches.length === 0 && REQUIRED_SHEETS.includes(template)) {
+  // An optional sheet may be absent, unless the mapping explicitly points at one.
+  const isExpected = REQUIRED_SHEETS.includes(template) || mapping.sheetName !== undefined;
+  if (matches.length === 0 && isExpected) {
     const message = mapping.sheetName === undefined
       ? `the sheet ${template} is missing`
       : `the sheet "${mapping.sheetName}" chosen for ${template} is not in the file`;
