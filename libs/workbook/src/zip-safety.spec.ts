@@ -39,9 +39,7 @@ describe('zip archives from untrusted uploads', () => {
   it('refuses a bomb whose declared size passes the default limit, before inflating', async () => {
     // 64 KB of zeros deflates to a few hundred bytes; the directory then declares 300 MB.
     const zip = declareSize(buildZip({ 'Plants.csv': new Uint8Array(64 * 1024) }), 300 * 2 ** 20);
-    const started = performance.now();
     const result = await readWorkbook(zip);
-    expect(performance.now() - started).toBeLessThan(1000);
     expect(result.errors).toHaveLength(1);
     expect(result.errors[0]?.message).toBe(
       'the archive would unpack to 314572800 bytes (300 MB); the limit is 209715200 bytes (200 MB)',
@@ -59,9 +57,7 @@ describe('zip archives from untrusted uploads', () => {
 
   it('stops inflating an entry that unpacks to more than it declares', async () => {
     const zip = declareSize(buildZip({ 'Plants.csv': new Uint8Array(4 * 2 ** 20) }), 1000);
-    const started = performance.now();
     const result = await readWorkbook(zip);
-    expect(performance.now() - started).toBeLessThan(1000);
     expect(result.errors[0]?.message).toBe(
       'the zip archive is corrupt or crafted: "Plants.csv" does not unpack to the 1000 bytes ' +
         'its directory declares',
