@@ -122,3 +122,51 @@ export interface Page<T> {
   items: T[];
   total: number;
 }
+
+/** A plant manager as shown on a plant's page. */
+export interface PlantManagerDto {
+  id: number;
+  name: string;
+  email: string;
+}
+
+/** GET /api/plants/:code answer: the plant and who manages it. */
+export interface PlantDetailDto extends PlantDto {
+  managers: PlantManagerDto[];
+}
+
+/** The fields GET /api/users can sort by. */
+export const USER_SORT_FIELDS = ['name', 'email', 'role', 'createdAt', 'lastLoginAt'] as const;
+/** One of {@link USER_SORT_FIELDS}. */
+export type UserSortField = (typeof USER_SORT_FIELDS)[number];
+
+/** Paging of every list: `limit` (1-200, default 50) and `offset` (default 0). */
+export const pageQuerySchema = z.object({
+  limit: z.coerce.number().int().min(1).max(200).default(50),
+  offset: z.coerce.number().int().min(0).max(1_000_000).default(0),
+});
+/** Paging of every list. */
+export type PageQuery = z.infer<typeof pageQuerySchema>;
+
+/** GET /api/users query: search text (name or e-mail), role, sort, order and paging. */
+export const listUsersQuerySchema = pageQuerySchema.extend({
+  q: z.string().trim().max(120).optional(),
+  role: roleSchema.optional(),
+  sort: z.enum(USER_SORT_FIELDS).default('name'),
+  order: z.enum(['asc', 'desc']).default('asc'),
+});
+/** GET /api/users query. */
+export type ListUsersQuery = z.infer<typeof listUsersQuerySchema>;
+
+/** The modes the server runs in. */
+export const KEELSON_MODES = ['demo', 'production', 'test'] as const;
+/** One of {@link KEELSON_MODES}. */
+export type KeelsonMode = (typeof KEELSON_MODES)[number];
+
+/** GET /api/health answer. */
+export interface HealthDto {
+  status: 'ok' | 'error';
+  db: 'ok' | 'error';
+  version: string;
+  mode: KeelsonMode;
+}

@@ -1,0 +1,108 @@
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import type { Logger } from 'pino';
+import type { KeelsonDatabase } from '@keelson/db';
+import { createAuthRouter } from './auth/auth.router';
+import { AuthService } from './auth/auth.service';
+import { LOGIN_RATE_LIMIT_DEFAULTS, type LoginRateLimits } from './auth/login-rate-limits';
+import { createPasswordHasher } from './auth/password-hasher';
+import { SessionTokens } from './auth/session-token';
+import type { AppConfig } from './config/app-config';
+import { appVersion } from './config/app-version';
+import { createHealthRouter } from './health/health.router';
+import { HealthRepository } from './health/health.repository';
+import { HealthService } from './health/health.service';
+import { authenticate } from './http/authenticate';
+import { apiNotFoundHandler, errorHandler } from './http/error-handler';
+import { requestLogging } from './http/request-logging';
+import { securityHeaders } from './http/security-headers';
+import { serveWebClient } from './http/web-client';
+import { createMailRouter } from './mail/mail.router';
+import { MailRepository } from './mail/mail.repository';
+import { MailService } from './mail/mail.service';
+import type { Mailer } from './mail/mailer';
+import { createPlantsRouter } from './plants/plants.router';
+import { PlantsRepository } from './plants/plants.repository';
+import { PlantsService } from './plants/plants.service';
+import { InvitationRepository } from './users/invitation.repository';
+import { createUsersRouter } from './users/users.router';
+import { UsersRepository } from './users/users.repository';
+import { UsersService } from './users/users.service';
+
+/** Everything {@link createApp} is built from; tests pass an in-memory database and a sink. */
+export interface AppDeps {
+  config: AppConfig;
+  db: KeelsonDatabase;
+  mailer: Mailer;
+  logger: Logger;
+  /** Sign-in limits; defaults to {@link LOGIN_RATE_LIMIT_DEFAULTS}. */
+  rateLimits?: Partial<LoginRateLimits>;
+  /** The clock; tests move it to expire invitations. */
+  now?: () => Date;
+}
+
+/** The app and the services later components and tests reach for. */
+export interface KeelsonApp {
+  app: Express;
+  services: { auth: AuthService; users: UsersService; plants: PlantsService; mail: MailService };
+}
+
+/**
+ * Builds the Express app: security headers, request logging with ids, JSON and cookie parsing,
+ * authentication, the `/api` component routers (each route declares its roles), JSON 404 for
+ * unknown `/api` paths, the web client with its SPA fallback, and the central error handler.
+ */
+export function createKeelsonApp(deps: AppDeps): KeelsonApp {
+  const { config, db } = deps;
+  const now = deps.now ?? (() => new Date());
+  const rateLimits = { ...LOGIN_RATE_LIMIT_DEFAULTS, ...deps.rateLimits };
+
+  const usersRepository = new UsersRepository(db);
+  const invitations = new InvitationRepository(db);
+  const plantsRepository = new PlantsRepository(db);
+  const mailRepository = new MailRepository(db);
+  const auth = new AuthService({
+    users: usersRepository,
+    invitations,
+    hasher: createPasswordHasher(config.bcryptCost),
+    tokens: new SessionTokens(config.jwtSecret),
+    now,
+  });
+  const users = new UsersService({
+    users: usersRepository,
+    invitations,
+    plants: plantsRepository,
+    mailer: deps.mailer,
+    publicUrl: () => config.publicUrl,
+    now,
+  });
+  const plants = new PlantsService(plantsRepository);
+  const mail = new MailService(mailRepository);
+  const health = new HealthService(new HealthRepository(db), appVersion(), config.mode);
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('query parser', 'simple');
+  app.use(securityHeaders(config.isSecureCookie));
+  app.use(requestLogging(deps.logger));
+  app.use('/api', express.json({ limit: '1mb' }), cookieParser(), authenticate((token) =>
+    auth.resolveSession(token),
+  ));
+  app.use('/api/health', createHealthRouter(health));
+  app.use(
+    '/api/auth',
+    createAuthRouter(auth, { isSecureCookie: config.isSecureCookie, rateLimits }),
+  );
+  app.use('/api/users', createUsersRouter(users));
+  app.use('/api/plants', createPlantsRouter(plants));
+  app.use('/api/admin/mail', createMailRouter(mail));
+  app.use('/api', apiNotFoundHandler);
+  serveWebClient(app, config.webRoot);
+  app.use(errorHandler);
+  return { app, services: { auth, users, plants, mail } };
+}
+
+/** The Express app alone (see {@link createKeelsonApp}). */
+export function createApp(deps: AppDeps): Express {
+  return createKeelsonApp(deps).app;
+}
