@@ -47,6 +47,7 @@ export function requestLogging(logger: Logger): RequestHandler {
         method: req.method,
         url: req.url,
       }),
+      res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
     },
   }) as unknown as RequestHandler;
 }
