@@ -1,0 +1,15 @@
+/**
+ * `@keelson/supply-graph/testing`: seeded fixtures shared by specs, the benchmark and the demo
+ * generator. Pure like the engine itself.
+ */
+export {
+  generateTieredNetwork,
+  type TieredNetworkOptions,
+} from './generate-tiered-network';
+export { mulberry32, pick, randomInt, shuffled, type Random } from './mulberry32';
+export {
+  WORKED_EXAMPLE,
+  WORKED_EXAMPLE_EXPECTED,
+  type WorkedProduct,
+  type WorkedSupplier,
+} from './worked-example';
