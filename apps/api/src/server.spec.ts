@@ -2,6 +2,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
+import { mailMessages, users } from '@keelson/db';
 import { ConfigError } from './config/app-config';
 import { startServer } from './server';
 
@@ -60,6 +61,28 @@ describe('startServer', () => {
     });
     await again.stop();
     expect(hookCalls).toBe(1);
+  });
+
+  it('invites the first administrator of an empty workspace outside demo mode', async () => {
+    const server = await startServer({
+      env: { KEELSON_ADMIN_EMAIL: 'Owner@Example.test' },
+      mode: 'test',
+      port: 0,
+      databasePath: ':memory:',
+      logLevel: 'silent',
+    });
+    try {
+      const people = server.db
+        .select({ email: users.email, role: users.role, hash: users.passwordHash })
+        .from(users)
+        .all();
+      expect(people).toEqual([{ email: 'owner@example.test', role: 'admin', hash: null }]);
+      const mail = server.db.select().from(mailMessages).all();
+      expect(mail.map((message) => message.toAddresses)).toEqual([['owner@example.test']]);
+      expect(mail[0]!.text).toContain(`http://127.0.0.1:${server.port}/set-password?token=`);
+    } finally {
+      await server.stop();
+    }
   });
 
   it('refuses to start in production without its secrets', async () => {

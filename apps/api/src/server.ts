@@ -12,6 +12,7 @@ import { startMailSink, type MailSink } from './mail/mail-sink';
 import { MailRepository } from './mail/mail.repository';
 import { createSmtpMailer } from './mail/mailer';
 import { seedDemoWorkspace } from './seed/demo-workspace';
+import { inviteFirstAdmin } from './seed/first-admin';
 
 /** Options of {@link startServer}: config overrides plus start-up hooks. */
 export interface StartServerOptions extends ConfigOverrides {
@@ -66,13 +67,25 @@ export async function startServer(options: StartServerOptions = {}): Promise<Run
         logger.info(seeded, 'seeded the demo workspace (password keelson-demo)');
       }
     }
-    const { app } = createKeelsonApp({ config, db: database.db, mailer, logger, rateLimits });
+    const { app, services } = createKeelsonApp({
+      config,
+      db: database.db,
+      mailer,
+      logger,
+      rateLimits,
+    });
     server = await listen(app, config.host, config.port);
     const port = (server.address() as AddressInfo).port;
     if (config.isPublicUrlDerived) {
       config.publicUrl = config.publicUrl.replace(/:\d+$/, `:${port}`);
     }
     const url = `http://${config.host.includes(':') ? `[${config.host}]` : config.host}:${port}`;
+    if (config.mode !== 'demo' && config.firstAdminEmail) {
+      const invited = await inviteFirstAdmin(services.users, database.db, config.firstAdminEmail);
+      if (invited) {
+        logger.info({ email: config.firstAdminEmail }, 'invited the first administrator');
+      }
+    }
     logger.info(
       { url, publicUrl: config.publicUrl, mode: config.mode, mailSink: mailSink?.port ?? null },
       `Keelson is listening on ${url}`,

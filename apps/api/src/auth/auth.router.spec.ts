@@ -31,7 +31,7 @@ function login(body: object) {
 }
 
 describe('POST /api/auth/login', () => {
-  it('signs in with the demo password, answers the user and token and sets the cookie', async () => {
+  it('signs in with the demo password, answers user and token, sets the cookie', async () => {
     const response = await login({ email: ' Risk@Demo.test ', password: 'keelson-demo' });
     expect(response.status).toBe(200);
     expect(response.body.user).toMatchObject({ email: 'risk@demo.test', role: 'risk_manager' });

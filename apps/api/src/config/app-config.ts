@@ -45,6 +45,11 @@ export interface AppConfig {
   isSecureCookie: boolean;
   /** `keelson-demo` in demo mode; null in every other mode. */
   demoPassword: string | null;
+  /**
+   * KEELSON_ADMIN_EMAIL: outside demo mode, an empty workspace invites this address as the first
+   * administrator at start (the set-password link goes out by e-mail). Null when unset.
+   */
+  firstAdminEmail: string | null;
 }
 
 /** Values a caller (tests, `startServer`) may set directly, winning over the environment. */
@@ -94,6 +99,7 @@ const environmentSchema = z.object({
     .max(1024 * 1024 * 1024)
     .default(20 * 1024 * 1024),
   LOG_LEVEL: optionalText.pipe(z.enum(LOG_LEVELS).optional()),
+  KEELSON_ADMIN_EMAIL: optionalText.pipe(z.email().toLowerCase().optional()),
 });
 
 /**
@@ -158,6 +164,7 @@ export function loadConfig(
     webRoot: overrides.webRoot ?? resolve(REPOSITORY_ROOT, 'dist/web/browser'),
     isSecureCookie: publicUrl.startsWith('https://'),
     demoPassword: mode === 'demo' ? DEMO_PASSWORD : null,
+    firstAdminEmail: vars.KEELSON_ADMIN_EMAIL ?? null,
   };
 }
 

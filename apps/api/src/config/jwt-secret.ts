@@ -31,7 +31,10 @@ export function resolveJwtSecret(input: JwtSecretInput): ResolvedJwtSecret {
     return { secret: input.given, source: 'environment' };
   }
   if (input.mode === 'test') {
-    return { secret: randomBytes(GENERATED_SECRET_BYTES).toString('base64url'), source: 'generated-for-test' };
+    return {
+      secret: randomBytes(GENERATED_SECRET_BYTES).toString('base64url'),
+      source: 'generated-for-test',
+    };
   }
   if (input.mode === 'production') {
     throw new Error('JWT_SECRET is required in production mode.');

@@ -11,7 +11,7 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 describe('GET /api/health', () => {
-  it('answers ok, the database state, the package version and the mode, without a session', async () => {
+  it('answers ok, the database state, version and mode without a session', async () => {
     const version = JSON.parse(readFileSync(`${REPOSITORY_ROOT}/package.json`, 'utf8')).version;
     const response = await request(t.app).get('/api/health');
     expect(response.status).toBe(200);

@@ -29,7 +29,9 @@ export function parseInput<Schema extends z.ZodType>(
   }));
   const first = issues[0];
   throw invalidRequest(
-    first ? `The request is not valid: ${first.path}: ${first.message}` : 'The request is not valid.',
+    first
+      ? `The request is not valid: ${first.path}: ${first.message}`
+      : 'The request is not valid.',
     { issues },
   );
 }

@@ -32,7 +32,8 @@ export function requestLogging(logger: Logger): RequestHandler {
     logger,
     genReqId(req, res) {
       const incoming = req.headers['x-request-id'];
-      const id = typeof incoming === 'string' && INCOMING_ID.test(incoming) ? incoming : randomUUID();
+      const isUsable = typeof incoming === 'string' && INCOMING_ID.test(incoming);
+      const id = isUsable ? incoming : randomUUID();
       res.setHeader(REQUEST_ID_HEADER, id);
       return id;
     },

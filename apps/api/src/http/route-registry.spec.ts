@@ -28,7 +28,9 @@ function concretePath(path: string): string {
 function call(entry: RegisteredRoute, role: Role | null) {
   const method = entry.method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete';
   const pending = request(t.app)[method](concretePath(entry.path)).set('x-keelson-csrf', '1');
-  return role ? pending.set('Authorization', `Bearer ${t.tokenFor(ACCOUNT_OF_ROLE[role])}`) : pending;
+  return role
+    ? pending.set('Authorization', `Bearer ${t.tokenFor(ACCOUNT_OF_ROLE[role])}`)
+    : pending;
 }
 
 describe('route registry', () => {
@@ -86,7 +88,8 @@ describe('declared access is enforced, route by route and role by role', () => {
       for (const role of ROLES) {
         const response = await call(entry, role);
         const isAllowed = entry.access === 'public' || entry.access!.includes(role);
-        const isRefusedForRole = response.status === 403 && response.body.error?.code === 'forbidden';
+        const isRefusedForRole =
+          response.status === 403 && response.body.error?.code === 'forbidden';
         table.push(`${entry.method} ${entry.path} ${role} ${response.status}`);
         expect(isRefusedForRole, `${entry.method} ${entry.path} as ${role}`).toBe(!isAllowed);
         expect(response.status, `${entry.method} ${entry.path} as ${role}`).not.toBe(401);

@@ -39,7 +39,11 @@ describe('GET /api/plants/:code', () => {
       name: 'Varnholm Works',
       country: 'DE',
       managers: [
-        { id: t.userId('plant.north@demo.test'), name: 'Pia Lindqvist', email: 'plant.north@demo.test' },
+        {
+          id: t.userId('plant.north@demo.test'),
+          name: 'Pia Lindqvist',
+          email: 'plant.north@demo.test',
+        },
       ],
     });
   });

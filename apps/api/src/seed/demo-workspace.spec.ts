@@ -9,7 +9,7 @@ let database: OpenDatabase | undefined;
 afterEach(() => database?.close());
 
 describe('seedDemoWorkspace', () => {
-  it('seeds the three plants and six accounts of an empty database, then calls afterSeed', async () => {
+  it('seeds three plants and six accounts into an empty database, then afterSeed', async () => {
     database = openDatabase(IN_MEMORY);
     const calls: number[] = [];
     const result = await seedDemoWorkspace(database.db, {
@@ -58,7 +58,9 @@ describe('seedDemoWorkspace', () => {
   it('leaves a database that has users alone', async () => {
     database = openDatabase(IN_MEMORY);
     await seedDemoWorkspace(database.db, { hashPassword: hasher.hash });
-    database.sqlite.prepare("update users set name = 'Changed' where email = 'admin@demo.test'").run();
+    database.sqlite
+      .prepare("update users set name = 'Changed' where email = 'admin@demo.test'")
+      .run();
     let isHookCalled = false;
     const again = await seedDemoWorkspace(database.db, {
       hashPassword: hasher.hash,
@@ -69,8 +71,10 @@ describe('seedDemoWorkspace', () => {
     expect(again.isSeeded).toBe(false);
     expect(isHookCalled).toBe(false);
     expect(database.sqlite.prepare('select count(*) from users').pluck().get()).toBe(6);
-    expect(
-      database.sqlite.prepare("select name from users where email = 'admin@demo.test'").pluck().get(),
-    ).toBe('Changed');
+    const name = database.sqlite
+      .prepare("select name from users where email = 'admin@demo.test'")
+      .pluck()
+      .get();
+    expect(name).toBe('Changed');
   });
 });

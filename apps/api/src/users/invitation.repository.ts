@@ -6,7 +6,12 @@ export class InvitationRepository {
   constructor(private readonly db: KeelsonDatabase) {}
 
   /** Stores a new invitation (only the token's hash). */
-  create(row: { userId: number; tokenHash: string; createdAt: string; expiresAt: string }): InvitationRow {
+  create(row: {
+    userId: number;
+    tokenHash: string;
+    createdAt: string;
+    expiresAt: string;
+  }): InvitationRow {
     return this.db.insert(invitations).values(row).returning().get();
   }
 

@@ -258,7 +258,10 @@ describe('PATCH /api/users/:id', () => {
   it('refuses an administrator demoting or deactivating themself (409)', async () => {
     const self = t.userId('admin@demo.test');
     for (const body of [{ role: 'buyer' }, { isActive: false }]) {
-      const response = await api().patch(`/api/users/${self}`).set('Authorization', admin).send(body);
+      const response = await api()
+        .patch(`/api/users/${self}`)
+        .set('Authorization', admin)
+        .send(body);
       expect(response.status).toBe(409);
       expect(response.body.error.code).toBe('self_change_refused');
     }
@@ -284,7 +287,10 @@ describe('PATCH /api/users/:id', () => {
       .set('Authorization', admin)
       .send({ name: 'Nobody' });
     expect(unknown.status).toBe(404);
-    const badId = await api().patch('/api/users/abc').set('Authorization', admin).send({ name: 'x' });
+    const badId = await api()
+      .patch('/api/users/abc')
+      .set('Authorization', admin)
+      .send({ name: 'x' });
     expect(badId.status).toBe(400);
     expect(badId.body.error.details.issues[0].path).toBe('params.id');
   });
