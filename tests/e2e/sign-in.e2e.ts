@@ -2,7 +2,7 @@
  * Browser journey: every demo account signs in through the sign-in page and sees its own
  * navigation. Screenshots of each home page go to docs/screens/.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { openBrowser, screenshot, type BrowserSession } from './browser';
 import { startTestServer, type TestServer } from './server';
 
@@ -21,6 +21,10 @@ describe('signing in as each demo account', () => {
   beforeAll(async () => {
     server = await startTestServer();
     browser = await openBrowser();
+  });
+  // One browser profile serves every test: start each one signed out.
+  beforeEach(async () => {
+    await browser.context.clearCookies();
   });
   afterAll(async () => {
     await browser?.close();
