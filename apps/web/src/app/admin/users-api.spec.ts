@@ -11,7 +11,9 @@ describe('userQueryParams', () => {
       limit: 50,
       offset: 100,
     });
-    expect(params.toString()).toBe('q=keller&role=buyer&sort=lastLoginAt&order=desc&limit=50&offset=100');
+    expect(params.toString()).toBe(
+      'q=keller&role=buyer&sort=lastLoginAt&order=desc&limit=50&offset=100',
+    );
   });
 
   it('leaves out empty text, missing role and missing sort (order only goes with a sort)', () => {

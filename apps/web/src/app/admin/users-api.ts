@@ -6,20 +6,16 @@ import type {
   Role,
   UpdateUserRequest,
   UserDto,
+  UserSortField,
 } from '@keelson/contracts';
 import { type Observable, map } from 'rxjs';
-
-/** Columns the user list can be sorted by on the server. */
-export const USER_SORT_KEYS = ['name', 'email', 'role', 'lastLoginAt', 'createdAt'] as const;
-/** One of {@link USER_SORT_KEYS}. */
-export type UserSortKey = (typeof USER_SORT_KEYS)[number];
 
 /** A query for GET /api/users; every field is optional. */
 export interface UserQuery {
   /** Free text matched against name and e-mail. */
   q?: string;
   role?: Role;
-  sort?: UserSortKey;
+  sort?: UserSortField;
   order?: 'asc' | 'desc';
   limit?: number;
   offset?: number;

@@ -14,7 +14,14 @@ import { MatSelect } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSort, MatSortHeader, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import { type PlantDto, ROLES, ROLE_LABELS, type Role, type UserDto } from '@keelson/contracts';
+import {
+  type PlantDto,
+  ROLES,
+  ROLE_LABELS,
+  type Role,
+  USER_SORT_FIELDS,
+  type UserDto,
+} from '@keelson/contracts';
 import {
   Subject,
   catchError,
@@ -31,7 +38,7 @@ import { ConfirmDialog, type ConfirmDialogData } from './confirm-dialog';
 import { PlantsApi } from './plants-api';
 import { UserDialog, type UserDialogData } from './user-dialog';
 import { USER_STATUS_LABELS, type UserStatus, userStatus } from './user-status';
-import { USER_SORT_KEYS, type UserQuery, type UserSortKey, UsersApi } from './users-api';
+import { type UserQuery, UsersApi } from './users-api';
 
 /** Rows per page offered by the paginator; the first is the default. */
 export const USER_PAGE_SIZES = [25, 50, 100] as const;
@@ -174,10 +181,10 @@ export class UsersPage {
   }
 
   protected onSort(sort: Sort): void {
-    const key = USER_SORT_KEYS.find((candidate) => candidate === sort.active);
+    const key = USER_SORT_FIELDS.find((candidate) => candidate === sort.active);
     this.query.update((query) => ({
       ...query,
-      sort: sort.direction && key ? (key satisfies UserSortKey) : undefined,
+      sort: sort.direction && key ? key : undefined,
       order: sort.direction || undefined,
       offset: 0,
     }));

@@ -11,7 +11,9 @@ import { Session } from './session';
 import { SignInPage } from './sign-in-page';
 
 /** The API's refusal for wrong credentials (wording from the API's contract). */
-const REFUSAL = { error: { code: 'invalid_credentials', message: 'E-mail or password is not right.' } };
+const REFUSAL = {
+  error: { code: 'invalid_credentials', message: 'E-mail or password is not right.' },
+};
 
 describe('SignInPage', () => {
   let fixture: ComponentFixture<SignInPage>;
@@ -96,7 +98,7 @@ describe('SignInPage', () => {
     const root = await create();
     submit(root);
     await fixture.whenStable();
-    const errors = [...root.querySelectorAll('mat-error')].map((error) => error.textContent?.trim());
+    const errors = [...root.querySelectorAll('mat-error')].map((node) => node.textContent?.trim());
     expect(errors).toEqual(['Enter your e-mail address.', 'Enter your password.']);
     backend.expectNone('/api/auth/login');
   });

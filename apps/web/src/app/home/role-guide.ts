@@ -97,7 +97,8 @@ export const ROLE_GUIDES: Readonly<Record<Role, RoleGuide>> = {
     ],
   },
   viewer: {
-    summary: 'As viewer you can read the network, the ranking and the register, without changing them.',
+    summary:
+      'As viewer you can read the network, the ranking and the register, without changing them.',
     tasks: [
       {
         icon: 'visibility',
