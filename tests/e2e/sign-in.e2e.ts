@@ -62,6 +62,22 @@ describe('signing in as each demo account', () => {
     });
   }
 
+  it('lets the administrator open the users list and the sent mail', async () => {
+    const page = await browser.newPage();
+    await page.goto(`${server.url}/sign-in`);
+    await page.getByLabel('E-mail').fill('admin@demo.test');
+    await page.getByLabel('Password').fill('keelson-demo');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Users' }).click();
+    await expect.poll(() => page.getByRole('row').count()).toBeGreaterThanOrEqual(7);
+    expect(await page.getByText('plant.north@demo.test').count()).toBeGreaterThan(0);
+    await screenshot(page, 'admin-users');
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Sent mail' }).click();
+    await page.waitForURL(/\/admin\/mail/);
+    await screenshot(page, 'admin-sent-mail');
+    await page.close();
+  });
+
   it('sends a signed-out visitor of an admin page back to sign-in', async () => {
     const page = await browser.newPage();
     await page.goto(`${server.url}/admin/users`);
