@@ -237,7 +237,7 @@ export function buildDemoNetwork(seed = 20261201): SupplyModel {
         continue;
       }
       const first = tier1[rotation++ % tier1.length]!;
-      if (random() < 0.3) {
+      if (random() < 0.8) {
         let second = pick(tier1);
         while (second === first) second = pick(tier1);
         addSource(plant.code, item, first.code, 70);
@@ -258,8 +258,9 @@ export function buildDemoNetwork(seed = 20261201): SupplyModel {
     }
     for (const material of sample(materials.slice(2), between(1, 2))) {
       const source = pick(tier2);
-      addSource(supplier.code, material.code, source.code, random() < 0.25 ? 60 : 100);
-      if (random() < 0.25) {
+      const isDual = random() < 0.8;
+      addSource(supplier.code, material.code, source.code, isDual ? 60 : 100);
+      if (isDual) {
         let second = pick(tier2);
         while (second === source) second = pick(tier2);
         addSource(supplier.code, material.code, second.code, 40);
@@ -279,8 +280,10 @@ export function buildDemoNetwork(seed = 20261201): SupplyModel {
     if (random() < 0.7) {
       const material = pick(materials.slice(12));
       if (sourcing.some((row) => row.buyerCode === supplier.code && row.itemCode === material.code)) continue;
-      addSource(supplier.code, material.code, pick(tier3).code, 100);
-      if (random() < 0.2) addSource(supplier.code, material.code, pick(tier3).code, 0, false);
+      const first = pick(tier3);
+      addSource(supplier.code, material.code, first.code, 100);
+      const second = pick(tier3);
+      if (second !== first) addSource(supplier.code, material.code, second.code, 0, random() < 0.7);
     }
   }
 
