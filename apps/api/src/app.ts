@@ -83,6 +83,9 @@ export function createKeelsonApp(deps: AppDeps): KeelsonApp {
   const app = express();
   app.disable('x-powered-by');
   app.set('query parser', 'simple');
+  if (config.trustProxy !== null) {
+    app.set('trust proxy', config.trustProxy);
+  }
   app.use(securityHeaders(config.isSecureCookie));
   app.use(requestLogging(deps.logger));
   app.use('/api', express.json({ limit: '1mb' }), cookieParser(), authenticate((token) =>

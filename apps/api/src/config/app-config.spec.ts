@@ -108,6 +108,16 @@ describe('loadConfig', () => {
     });
   });
 
+  it('reads TRUST_PROXY as a hop count or a list, and refuses other text', () => {
+    const base = { KEELSON_MODE: 'test', DATABASE_PATH: ':memory:' };
+    expect(loadConfig(base).trustProxy).toBeNull();
+    expect(loadConfig({ ...base, TRUST_PROXY: '1' }).trustProxy).toBe(1);
+    expect(loadConfig({ ...base, TRUST_PROXY: 'loopback, 10.0.0.0/8' }).trustProxy).toBe(
+      'loopback, 10.0.0.0/8',
+    );
+    expect(() => loadConfig({ ...base, TRUST_PROXY: 'yes;rm' })).toThrow(/TRUST_PROXY/);
+  });
+
   it('lets overrides win over the environment', () => {
     const config = loadConfig(
       { PORT: '8080', KEELSON_MODE: 'production' },

@@ -50,6 +50,11 @@ export interface AppConfig {
    * administrator at start (the set-password link goes out by e-mail). Null when unset.
    */
   firstAdminEmail: string | null;
+  /**
+   * TRUST_PROXY: Express's `trust proxy` (a hop count, or `loopback`, or addresses), so rate
+   * limits see the client's address behind a reverse proxy. Null (the default) trusts none.
+   */
+  trustProxy: number | string | null;
 }
 
 /** Values a caller (tests, `startServer`) may set directly, winning over the environment. */
@@ -100,6 +105,12 @@ const environmentSchema = z.object({
     .default(20 * 1024 * 1024),
   LOG_LEVEL: optionalText.pipe(z.enum(LOG_LEVELS).optional()),
   KEELSON_ADMIN_EMAIL: optionalText.pipe(z.email().toLowerCase().optional()),
+  TRUST_PROXY: optionalText.pipe(
+    z
+      .string()
+      .regex(/^[\w.:/, -]+$/, 'must be a hop count, "loopback" or a list of addresses')
+      .optional(),
+  ),
 });
 
 /**
@@ -165,7 +176,13 @@ export function loadConfig(
     isSecureCookie: publicUrl.startsWith('https://'),
     demoPassword: mode === 'demo' ? DEMO_PASSWORD : null,
     firstAdminEmail: vars.KEELSON_ADMIN_EMAIL ?? null,
+    trustProxy: parseTrustProxy(vars.TRUST_PROXY),
   };
+}
+
+function parseTrustProxy(value: string | undefined): number | string | null {
+  if (value === undefined) return null;
+  return /^\d+$/.test(value) ? Number(value) : value;
 }
 
 /** An IPv6 literal needs brackets inside a URL. */
