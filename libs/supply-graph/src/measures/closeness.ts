@@ -29,24 +29,28 @@ export interface ClosenessOptions extends ProgressOptions {
   wassermanFaust?: boolean;
   /** Compute only these nodes; the others are NaN. Default: every node. */
   nodes?: ArrayLike<number>;
+  /** 32-bit words per node per pass (32 sources each); default 8. Results do not depend on it. */
+  wordsPerPass?: number;
 }
 
 /** Defaults of {@link closenessCentrality}. */
-export const CLOSENESS_DEFAULTS = { wassermanFaust: true } as const;
+export const CLOSENESS_DEFAULTS = { wassermanFaust: true, wordsPerPass: 8 } as const;
 
 /** Closeness of the requested nodes (index order; NaN for nodes not requested). */
 export function closenessCentrality(graph: CsrGraph, options: ClosenessOptions = {}): Float64Array {
   const { n } = graph;
   const wassermanFaust = options.wassermanFaust ?? CLOSENESS_DEFAULTS.wassermanFaust;
-  const requested = options.nodes ?? Int32Array.from({ length: n }, (_, v) => v);
   const searched = graph.directed ? reverseCsr(graph) : graph;
+  const requested = inSearchOrder(searched, options.nodes);
   const scores = new Float64Array(n).fill(options.nodes ? Number.NaN : 0);
-  const search = new MultiSourceSearch(searched);
-  const sources = new Int32Array(32);
-  for (let start = 0; start < requested.length; start += 32) {
+  const words = options.wordsPerPass ?? CLOSENESS_DEFAULTS.wordsPerPass;
+  const batch = 32 * words;
+  const search = new MultiSourceSearch(searched, words);
+  const sources = new Int32Array(batch);
+  for (let start = 0; start < requested.length; start += batch) {
     throwIfCancelled(options.signal, 'closeness');
     options.onProgress?.(start / requested.length);
-    const count = Math.min(32, requested.length - start);
+    const count = Math.min(batch, requested.length - start);
     for (let i = 0; i < count; i++) sources[i] = requested[start + i]!;
     search.run(sources, count);
     for (let i = 0; i < count; i++) {
@@ -64,89 +68,180 @@ export function closenessCentrality(graph: CsrGraph, options: ClosenessOptions =
   return scores;
 }
 
-/** Breadth-first search from up to 32 sources at once (one bit each). */
+/**
+ * The requested nodes sorted by a breadth-first order of the graph. Sources close to each other
+ * reach most nodes at the same levels, so a pass of 32 neighbours touches each node in few
+ * levels; arbitrary groups touch each node at many levels and cost several times more.
+ */
+function inSearchOrder(graph: CsrGraph, nodes: ArrayLike<number> | undefined): Int32Array {
+  const { n, offsets, targets } = graph;
+  const rank = new Int32Array(n).fill(-1);
+  const queue = new Int32Array(n);
+  let next = 0;
+  for (let root = 0; root < n; root++) {
+    if (rank[root] !== -1) continue;
+    rank[root] = next;
+    queue[next++] = root;
+    for (let head = next - 1; head < next; head++) {
+      const v = queue[head]!;
+      for (let e = offsets[v]!; e < offsets[v + 1]!; e++) {
+        const w = targets[e]!;
+        if (rank[w] === -1) {
+          rank[w] = next;
+          queue[next++] = w;
+        }
+      }
+    }
+  }
+  if (nodes === undefined) return queue;
+  const requested = Int32Array.from(nodes, (v) => {
+    if (!Number.isInteger(v) || v < 0 || v >= n) {
+      throw new RangeError(`closenessCentrality: node ${v} is not a node index`);
+    }
+    return v;
+  });
+  return requested.sort((a, b) => rank[a]! - rank[b]!);
+}
+
+/** Breadth-first search from up to 32 x `words` sources at once (one bit each). */
 class MultiSourceSearch {
-  /** Nodes reached per source bit, the source excluded. */
-  readonly reached = new Float64Array(32);
-  /** Sum of hop distances per source bit. */
-  readonly distanceSum = new Float64Array(32);
+  /** Nodes reached per source, the source excluded. */
+  readonly reached: Float64Array;
+  /** Sum of hop distances per source. */
+  readonly distanceSum: Float64Array;
   private readonly seen: Uint32Array;
   private readonly visit: Uint32Array;
   private readonly visitNext: Uint32Array;
+  private readonly isQueued: Uint8Array;
+  /** 1 when a node has been reached from every source of the pass: nothing more to add. */
+  private readonly isComplete: Uint8Array;
+  private readonly liveWords: Int32Array;
+  /** Per word, the bits of the sources in this pass. */
+  private readonly full: Uint32Array;
   private frontier: Int32Array;
   private next: Int32Array;
   private readonly counter: Uint32Array;
+  private readonly slices: number;
 
-  constructor(private readonly graph: CsrGraph) {
+  constructor(
+    private readonly graph: CsrGraph,
+    private readonly words: number,
+  ) {
     const { n } = graph;
-    this.seen = new Uint32Array(n);
-    this.visit = new Uint32Array(n);
-    this.visitNext = new Uint32Array(n);
+    this.reached = new Float64Array(32 * words);
+    this.distanceSum = new Float64Array(32 * words);
+    this.seen = new Uint32Array(n * words);
+    this.visit = new Uint32Array(n * words);
+    this.visitNext = new Uint32Array(n * words);
+    this.isQueued = new Uint8Array(n);
+    this.isComplete = new Uint8Array(n);
+    this.liveWords = new Int32Array(words);
+    this.full = new Uint32Array(words);
     this.frontier = new Int32Array(n);
     this.next = new Int32Array(n);
-    // Bit-sliced counters: counter[k] holds bit k of 32 per-source counts (enough for n nodes).
-    this.counter = new Uint32Array(Math.max(1, 32 - Math.clz32(n)));
+    // Bit-sliced counters per word: slice k holds bit k of 32 per-source counts (n fits).
+    this.slices = Math.max(1, 32 - Math.clz32(n));
+    this.counter = new Uint32Array(this.slices * words);
   }
 
   run(sources: Int32Array, count: number): void {
     const { offsets, targets } = this.graph;
-    const { seen, visit, visitNext, counter } = this;
+    const { seen, visit, visitNext, isQueued, isComplete, liveWords, full, counter, words, slices } =
+      this;
     seen.fill(0);
+    isComplete.fill(0);
+    for (let j = 0; j < words; j++) {
+      const bits = Math.min(32, Math.max(0, count - 32 * j));
+      full[j] = bits === 32 ? 0xffffffff : (1 << bits) - 1;
+    }
     this.reached.fill(0);
     this.distanceSum.fill(0);
     let frontierSize = 0;
     for (let i = 0; i < count; i++) {
       const s = sources[i]!;
-      if (visit[s] === 0) this.frontier[frontierSize++] = s;
-      seen[s]! |= 1 << i;
-      visit[s]! |= 1 << i;
+      if (isQueued[s] === 0) {
+        isQueued[s] = 1;
+        this.frontier[frontierSize++] = s;
+      }
+      seen[s * words + (i >>> 5)]! |= 1 << (i & 31);
+      visit[s * words + (i >>> 5)]! |= 1 << (i & 31);
     }
+    for (let i = 0; i < frontierSize; i++) isQueued[this.frontier[i]!] = 0;
     for (let level = 1; frontierSize > 0; level++) {
       const frontier = this.frontier;
       const next = this.next;
       let nextSize = 0;
       for (let i = 0; i < frontierSize; i++) {
         const v = frontier[i]!;
-        const bits = visit[v]!;
-        for (let e = offsets[v]!; e < offsets[v + 1]!; e++) {
+        const vBase = v * words;
+        // The words in which v was reached last level: the only ones it can pass on.
+        let live = 0;
+        for (let j = 0; j < words; j++) if (visit[vBase + j] !== 0) liveWords[live++] = j;
+        const end = offsets[v + 1]!;
+        for (let e = offsets[v]!; e < end; e++) {
           const w = targets[e]!;
-          const fresh = bits & ~seen[w]!;
-          if (fresh === 0) continue;
-          if (visitNext[w] === 0) next[nextSize++] = w;
-          visitNext[w]! |= fresh;
+          if (isComplete[w] === 1) continue;
+          const wBase = w * words;
+          let any = 0;
+          for (let l = 0; l < live; l++) {
+            const j = liveWords[l]!;
+            const fresh = visit[vBase + j]! & ~seen[wBase + j]!;
+            if (fresh !== 0) {
+              visitNext[wBase + j]! |= fresh;
+              any = 1;
+            }
+          }
+          if (any !== 0 && isQueued[w] === 0) {
+            isQueued[w] = 1;
+            next[nextSize++] = w;
+          }
         }
       }
-      for (let i = 0; i < frontierSize; i++) visit[frontier[i]!] = 0;
+      for (let i = 0; i < frontierSize; i++) {
+        const vBase = frontier[i]! * words;
+        for (let j = 0; j < words; j++) visit[vBase + j] = 0;
+      }
       counter.fill(0);
       for (let i = 0; i < nextSize; i++) {
         const w = next[i]!;
-        const fresh = visitNext[w]!;
-        visitNext[w] = 0;
-        seen[w]! |= fresh;
-        visit[w] = fresh;
-        // Add one to the count of every bit set in `fresh` (ripple-carry over the slices).
-        let carry = fresh;
-        for (let k = 0; carry !== 0; k++) {
-          const overflow = counter[k]! & carry;
-          counter[k]! ^= carry;
-          carry = overflow;
+        isQueued[w] = 0;
+        let complete = 1;
+        for (let j = 0; j < words; j++) {
+          const fresh = visitNext[w * words + j]!;
+          visitNext[w * words + j] = 0;
+          seen[w * words + j]! |= fresh;
+          if (seen[w * words + j] !== full[j]) complete = 0;
+          visit[w * words + j] = fresh;
+          // Add one to the count of every bit set in `fresh` (ripple carry over the slices).
+          let carry = fresh;
+          for (let k = j * slices; carry !== 0; k++) {
+            const overflow = counter[k]! & carry;
+            counter[k]! ^= carry;
+            carry = overflow;
+          }
         }
+        isComplete[w] = complete;
       }
       if (nextSize > 0) this.addLevel(level, count);
       this.frontier = next;
       this.next = frontier;
       frontierSize = nextSize;
     }
-    for (let i = 0; i < frontierSize; i++) visit[this.frontier[i]!] = 0;
+    for (let i = 0; i < frontierSize; i++) {
+      const vBase = this.frontier[i]! * words;
+      for (let j = 0; j < words; j++) visit[vBase + j] = 0;
+    }
   }
 
   private addLevel(level: number, count: number): void {
-    const { counter } = this;
-    for (let bit = 0; bit < count; bit++) {
+    const { counter, slices } = this;
+    for (let i = 0; i < count; i++) {
+      const base = (i >>> 5) * slices;
+      const bit = i & 31;
       let reachedAtLevel = 0;
-      for (let k = 0; k < counter.length; k++) reachedAtLevel += ((counter[k]! >>> bit) & 1) * 2 ** k;
-      this.reached[bit]! += reachedAtLevel;
-      this.distanceSum[bit]! += reachedAtLevel * level;
+      for (let k = 0; k < slices; k++) reachedAtLevel += ((counter[base + k]! >>> bit) & 1) * 2 ** k;
+      this.reached[i]! += reachedAtLevel;
+      this.distanceSum[i]! += reachedAtLevel * level;
     }
   }
 }

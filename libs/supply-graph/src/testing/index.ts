@@ -6,6 +6,7 @@ export {
   generateTieredNetwork,
   type TieredNetworkOptions,
 } from './generate-tiered-network';
+export { compactModel, type CompactModel } from './compact-model';
 export { mulberry32, pick, randomInt, shuffled, type Random } from './mulberry32';
 export {
   WORKED_EXAMPLE,
