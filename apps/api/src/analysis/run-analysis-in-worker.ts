@@ -1,0 +1,106 @@
+/**
+ * Runs `analyse()` of `@keelson/supply-graph` in a worker thread so that a large network never
+ * blocks the API's event loop. Progress arrives as messages; aborting the signal terminates the
+ * worker at once (the engine itself is synchronous) and rejects with `AnalysisCancelledError`.
+ */
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { Worker } from 'node:worker_threads';
+import type { SupplyModel } from '@keelson/contracts';
+import {
+  AnalysisCancelledError,
+  ConvergenceError,
+  UnknownSupplierError,
+  type AnalysisResult,
+  type AnalysisStage,
+} from '@keelson/supply-graph';
+import type { AnalysisWorkerInput, AnalysisWorkerMessage, SerialisedError } from './analysis-worker';
+
+/** The failure set of the scenario, as in `analyse()`. */
+export interface WorkerAnalysisOptions {
+  fail?: string[];
+  failCountry?: string;
+}
+
+/** Progress and cancellation of a worker run. */
+export interface WorkerRunHooks {
+  onProgress?: (fraction: number, stage: AnalysisStage) => void;
+  signal?: AbortSignal;
+}
+
+const workerUrl = new URL('./analysis-worker.ts', import.meta.url);
+const tsconfigPath = fileURLToPath(new URL('../../../../tsconfig.json', import.meta.url));
+const tsxApi =
+  typeof import.meta.resolve === 'function' ? import.meta.resolve('tsx/esm/api') : 'tsx/esm/api';
+
+/**
+ * The worker's entry: registers tsx's loader, then imports the TypeScript worker. Node 20 ignores
+ * `--import` in a Worker's `execArgv` (checked on 20.20: a preload given there never runs), so
+ * `execArgv: ['--import', 'tsx']` alone fails with "Unknown file extension .ts"; registering
+ * through tsx's API inside the thread works on Node 20 and later alike.
+ */
+const bootstrap =
+  `import(${JSON.stringify(tsxApi)})` +
+  `.then((tsx) => { tsx.register(); return import(${JSON.stringify(workerUrl.href)}); })`;
+
+/**
+ * Analyses `model` in a new worker thread. Resolves with the analysis; rejects with
+ * `UnknownSupplierError`, `ConvergenceError` or `AnalysisCancelledError` as `analyse()` would
+ * throw them, or with the worker's own error.
+ */
+export function runAnalysisInWorker(
+  model: SupplyModel,
+  options: WorkerAnalysisOptions = {},
+  hooks: WorkerRunHooks = {},
+): Promise<AnalysisResult> {
+  const { signal, onProgress } = hooks;
+  if (signal?.aborted) return Promise.reject(new AnalysisCancelledError('start'));
+  return new Promise<AnalysisResult>((resolve, reject) => {
+    const input: AnalysisWorkerInput = { model, fail: options.fail, failCountry: options.failCountry };
+    const worker = new Worker(bootstrap, {
+      eval: true,
+      workerData: input,
+      // tsx resolves the @keelson/* aliases from this tsconfig whatever the working directory.
+      env: existsSync(tsconfigPath) ? { ...process.env, TSX_TSCONFIG_PATH: tsconfigPath } : process.env,
+    });
+    let stage = 'start';
+    let settled = false;
+    const finish = (outcome: () => void) => {
+      if (settled) return;
+      settled = true;
+      signal?.removeEventListener('abort', onAbort);
+      outcome();
+    };
+    const onAbort = () => {
+      finish(() => reject(new AnalysisCancelledError(stage)));
+      void worker.terminate();
+    };
+    signal?.addEventListener('abort', onAbort, { once: true });
+    worker.on('message', (message: AnalysisWorkerMessage) => {
+      if (message.type === 'progress') {
+        stage = message.stage;
+        if (!settled) onProgress?.(message.fraction, message.stage);
+      } else if (message.type === 'result') {
+        finish(() => resolve(message.result));
+      } else {
+        finish(() => reject(revive(message.error)));
+      }
+    });
+    worker.on('error', (error) => finish(() => reject(error)));
+    worker.on('exit', (code) => {
+      finish(() => reject(new Error(`Analysis worker stopped with exit code ${code} before a result`)));
+    });
+  });
+}
+
+/** Turns the worker's plain error back into the engine's named error classes. */
+function revive(error: SerialisedError): Error {
+  if (error.name === 'UnknownSupplierError') return new UnknownSupplierError(error.codes ?? []);
+  if (error.name === 'ConvergenceError') {
+    return new ConvergenceError(error.measure ?? 'unknown', error.iterations ?? 0);
+  }
+  if (error.name === 'AnalysisCancelledError') return new AnalysisCancelledError(error.stage ?? 'unknown');
+  const revived = new Error(error.message);
+  revived.name = error.name;
+  return revived;
+}
