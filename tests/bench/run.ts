@@ -1,0 +1,85 @@
+/**
+ * `npm run bench [-- --sizes 1000,10000,50000] [--sample 64]`: speed and memory of the analysis
+ * engine on seeded tiered networks (about 20 edges per supplier). Each size runs in its own child
+ * process so that its peak RSS (`process.resourceUsage().maxRSS`) is its own. Prints a table and
+ * writes tests/bench/results.json. See docs/performance.md for the figures and how to read them.
+ */
+import { execFileSync } from 'node:child_process';
+import { writeFileSync } from 'node:fs';
+import { cpus, freemem, loadavg, totalmem } from 'node:os';
+import { join } from 'node:path';
+import { parseArgs } from 'node:util';
+import { measureSize, type SizeResult } from './measure-size';
+
+const here = import.meta.dirname;
+const { values } = parseArgs({
+  options: {
+    sizes: { type: 'string', default: '1000,10000,50000' },
+    sample: { type: 'string', default: '64' },
+    child: { type: 'string' },
+  },
+});
+
+if (values.child !== undefined) {
+  const result = measureSize(Number(values.child), Number(values.sample));
+  process.stdout.write(`${JSON.stringify(result)}\n`);
+} else {
+  const sizes = values.sizes.split(',').map((s) => Number(s.trim()));
+  if (sizes.some((s) => !Number.isInteger(s) || s < 1)) {
+    process.stderr.write(`--sizes must list whole numbers, not "${values.sizes}"\n`);
+    process.exit(2);
+  }
+  const machine = {
+    cpu: cpus()[0]?.model ?? 'unknown',
+    cores: cpus().length,
+    memoryGb: Math.round(totalmem() / 2 ** 30),
+    freeMemoryGb: Math.round(freemem() / 2 ** 30),
+    node: process.version,
+    loadAverageAtStart: loadavg().map((l) => Math.round(l * 100) / 100),
+  };
+  const results: SizeResult[] = [];
+  for (const size of sizes) {
+    process.stderr.write(`size ${size}: running in a child process...\n`);
+    const output = execFileSync(
+      process.execPath,
+      ['--import', 'tsx', '--expose-gc', join(here, 'run.ts'), '--child', String(size), '--sample', values.sample],
+      { encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'], maxBuffer: 1 << 24 },
+    );
+    results.push(JSON.parse(output.trim().split('\n').at(-1)!) as SizeResult);
+  }
+  const report = {
+    command: `npm run bench -- --sizes ${sizes.join(',')} --sample ${values.sample}`,
+    date: new Date().toISOString(),
+    machine,
+    results,
+  };
+  writeFileSync(join(here, 'results.json'), `${JSON.stringify(report, null, 2)}\n`);
+  process.stdout.write(formatTable(results));
+  process.stdout.write(`\nMachine: ${machine.cores} x ${machine.cpu}, ${machine.memoryGb} GB, Node ${machine.node}, `);
+  process.stdout.write(`load average at start ${machine.loadAverageAtStart.join(' / ')}\n`);
+  process.stdout.write(`Wrote ${join(here, 'results.json')}\n`);
+}
+
+function formatTable(rows: SizeResult[]): string {
+  const header = [
+    'suppliers', 'nodes', 'edges', 'analysis s', 'cpu s', 'peak RSS MB', 'single rem. s',
+    'one-at-a-time s (est.)', 'speed-up', 'betweenness s', 'graphology s', 'vs graphology',
+  ];
+  const cells = rows.map((r) => [
+    String(r.suppliers),
+    String(r.nodes),
+    String(r.edges),
+    r.analysisSeconds.toFixed(2),
+    r.analysisCpuSeconds.toFixed(2),
+    r.peakRssMb.toFixed(0),
+    r.stageSeconds['single removals']!.toFixed(2),
+    r.oneAtATime.extrapolatedSeconds.toFixed(1),
+    `${r.oneAtATime.speedUp.toFixed(1)}x`,
+    r.stageSeconds['betweenness']!.toFixed(2),
+    r.graphology.seconds === null ? 'not run' : r.graphology.seconds.toFixed(1),
+    r.graphology.speedUpOfSubset === null ? '-' : `${r.graphology.speedUpOfSubset.toFixed(0)}x`,
+  ]);
+  const widths = header.map((h, i) => Math.max(h.length, ...cells.map((c) => c[i]!.length)));
+  const line = (row: string[]) => row.map((c, i) => c.padStart(widths[i]!)).join('  ');
+  return [line(header), line(widths.map((w) => '-'.repeat(w))), ...cells.map(line), ''].join('\n');
+}
