@@ -49,12 +49,15 @@ const unstructured = fc
     for (const [buyer, item, seller, toPlant, qualified] of rows) {
       const buyerCode = toPlant ? 'P1' : supplierCodes[buyer % suppliers]!;
       const itemCode = toPlant ? partCodes[item % parts]! : `C${item % 10}`;
-      const row: [string, string, string, boolean] = [buyerCode, itemCode, supplierCodes[seller % suppliers]!, qualified];
+      const supplierCode = supplierCodes[seller % suppliers]!;
+      const row: [string, string, string, boolean] = [buyerCode, itemCode, supplierCode, qualified];
       const key = row.slice(0, 3).join('|');
       if (!seen.has(key)) sourcing.push(row);
       seen.add(key);
     }
-    const bomLines = new Set(bom.map(([product, part]) => `F${product % 3}|${partCodes[part % parts]}`));
+    const bomLines = new Set(
+      bom.map(([product, part]) => `F${product % 3}|${partCodes[part % parts]}`),
+    );
     return compactModel({
       plants: ['P1'],
       products: [['F0', 'P1', 100], ['F1', 'P1', 250], ['F2', 'P1', 75]],
@@ -91,7 +94,9 @@ describe('allSingleImpacts', () => {
       suppliers: codes,
       sourcing: [
         ['P1', 'I1', 'S0'],
-        ...codes.map((code, i) => [code, 'R', codes[(i + 1) % codes.length]!] as [string, string, string]),
+        ...codes.map(
+          (code, i) => [code, 'R', codes[(i + 1) % codes.length]!] as [string, string, string],
+        ),
       ],
     });
     const all = allSingleImpacts(buildSupplyGraph(model));
@@ -128,7 +133,9 @@ describe('properties of the failure rules', () => {
             .filter((r) => r.buyerCode === row.buyerCode && r.itemCode === row.itemCode)
             .map((r) => r.supplierCode),
         );
-        const choices = model.suppliers.filter((s) => !taken.has(s.code) && s.code !== row.buyerCode);
+        const choices = model.suppliers.filter(
+          (s) => !taken.has(s.code) && s.code !== row.buyerCode,
+        );
         fc.pre(choices.length > 0);
         const extra = { ...row, supplierCode: choices[supplierPick % choices.length]!.code };
         const before = buildSupplyGraph(model);
@@ -143,7 +150,9 @@ describe('properties of the failure rules', () => {
           const downBefore = propagateFailure(before, [code]);
           const downAfter = propagateFailure(after, [code]);
           before.nodes.forEach((node) => {
-            if (downAfter[after.indexOf.get(node.id)!] === 1) expect(downBefore[node.index]).toBe(1);
+            if (downAfter[after.indexOf.get(node.id)!] === 1) {
+              expect(downBefore[node.index]).toBe(1);
+            }
           });
         }
         if (sameBaseline) {
@@ -169,7 +178,8 @@ describe('properties of the failure rules', () => {
         const impact = impactOf(graph, [code]);
         expect(impact.productsLost).toEqual([]);
         expect(impact.revenueImpact).toBe(0);
-        expect(allSingleImpacts(graph)[graph.supplierOrdinalOf.get(code)!]!.productsLost).toEqual([]);
+        const ordinal = graph.supplierOrdinalOf.get(code)!;
+        expect(allSingleImpacts(graph)[ordinal]!.productsLost).toEqual([]);
       }),
       { numRuns: 40 },
     );

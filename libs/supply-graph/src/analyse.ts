@@ -69,7 +69,9 @@ export function analyse(model: SupplyModel, options: AnalyseOptions = {}): Analy
     const weight = STAGE_WEIGHTS[stage];
     options.onProgress?.(done, stage);
     const t0 = performance.now();
-    const result = work((f) => options.onProgress?.(done + weight * Math.min(1, Math.max(0, f)), stage));
+    const result = work((f) =>
+      options.onProgress?.(done + weight * Math.min(1, Math.max(0, f)), stage),
+    );
     timings[stage] = performance.now() - t0;
     done += weight;
     return result;
@@ -155,7 +157,9 @@ function scenarioCodes(graph: SupplyGraph, options: AnalyseOptions): string[] | 
   if (options.failCountry !== undefined) {
     const country = normaliseCountry(options.failCountry);
     for (const supplier of graph.supplierRecords) {
-      if (country !== '' && normaliseCountry(supplier.country) === country) codes.push(supplier.code);
+      if (country !== '' && normaliseCountry(supplier.country) === country) {
+        codes.push(supplier.code);
+      }
     }
   }
   return sortedUniqueCodes(codes);

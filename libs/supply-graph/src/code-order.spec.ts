@@ -24,6 +24,8 @@ describe('compareCodePoints', () => {
     );
   });
   it('sorts case-sensitively (uppercase first) and removes repeats', () => {
-    expect(sortedUniqueCodes(['b', 'B', 'a', 'b', 'S-10', 'S-2'])).toEqual(['B', 'S-10', 'S-2', 'a', 'b']);
+    expect(sortedUniqueCodes(['b', 'B', 'a', 'b', 'S-10', 'S-2'])).toEqual(
+      ['B', 'S-10', 'S-2', 'a', 'b'],
+    );
   });
 });

@@ -15,7 +15,9 @@ describe('failurePaths', () => {
     expect(f2[0]).toBe('supplier:S4');
     expect(f2.slice(-2)).toEqual(['item:I2@P1', 'product:F2']);
     expect(f2).toHaveLength(5);
-    expect(paths[0]!.nodes.map((n) => n.id).slice(-3)).toEqual(['item:I2@P1', 'item:A1@P1', 'product:F1']);
+    expect(paths[0]!.nodes.map((n) => n.id).slice(-3)).toEqual(
+      ['item:I2@P1', 'item:A1@P1', 'product:F1'],
+    );
   });
   it('describes nodes with kind, code, buyer, tier and a column counted from the product', () => {
     const [path] = failurePaths(graph, 'S6');

@@ -80,7 +80,9 @@ describe('impactOf', () => {
       revenueExposedPerWeek: 1000,
       revenueImpact: 4000,
       timeToRecover: 6,
-      products: [{ code: 'F1', plantCode: 'P1', weeklyRevenue: 1000, timeToSurvive: 2, lostWeeks: 4 }],
+      products: [
+        { code: 'F1', plantCode: 'P1', weeklyRevenue: 1000, timeToSurvive: 2, lostWeeks: 4 },
+      ],
     });
   });
   it('uses the largest recovery and the smallest down cover for a set', () => {
@@ -95,6 +97,10 @@ describe('impactOf', () => {
     expect(impact.revenueImpact).toBe(1000 * 8.5 + 500 * 8.5);
   });
   it('has zero time to recover and no loss for the empty set', () => {
-    expect(impactOf(graph, [])).toMatchObject({ productsLost: [], timeToRecover: 0, revenueImpact: 0 });
+    expect(impactOf(graph, [])).toMatchObject({
+      productsLost: [],
+      timeToRecover: 0,
+      revenueImpact: 0,
+    });
   });
 });

@@ -5,7 +5,12 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import type { SupplyModel } from '@keelson/contracts';
-import { analyse, ConvergenceError, UnknownSupplierError, AnalysisCancelledError } from '@keelson/supply-graph';
+import {
+  analyse,
+  AnalysisCancelledError,
+  ConvergenceError,
+  UnknownSupplierError,
+} from '@keelson/supply-graph';
 import type { AnalysisStage } from '@keelson/supply-graph';
 
 /** What the worker is started with (`workerData`). */
@@ -36,7 +41,8 @@ function serialise(error: unknown): SerialisedError {
     return { name: error.name, message: error.message, codes: [...error.codes] };
   }
   if (error instanceof ConvergenceError) {
-    return { name: error.name, message: error.message, measure: error.measure, iterations: error.iterations };
+    const { name, message, measure, iterations } = error;
+    return { name, message, measure, iterations };
   }
   if (error instanceof AnalysisCancelledError) {
     return { name: error.name, message: error.message, stage: error.stage };

@@ -55,7 +55,9 @@ describe('runAnalysisInWorker', () => {
     ).rejects.toBeInstanceOf(AnalysisCancelledError);
   });
   it('passes UnknownSupplierError back with its codes', async () => {
-    const error = await runAnalysisInWorker(WORKED_EXAMPLE, { fail: ['S1', 'X1'] }).catch((e: unknown) => e);
+    const error = await runAnalysisInWorker(WORKED_EXAMPLE, { fail: ['S1', 'X1'] }).catch(
+      (e: unknown) => e,
+    );
     expect(error).toBeInstanceOf(UnknownSupplierError);
     expect((error as UnknownSupplierError).codes).toEqual(['X1']);
   });

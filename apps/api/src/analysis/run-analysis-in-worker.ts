@@ -14,7 +14,11 @@ import {
   type AnalysisResult,
   type AnalysisStage,
 } from '@keelson/supply-graph';
-import type { AnalysisWorkerInput, AnalysisWorkerMessage, SerialisedError } from './analysis-worker';
+import type {
+  AnalysisWorkerInput,
+  AnalysisWorkerMessage,
+  SerialisedError,
+} from './analysis-worker';
 
 /** The failure set of the scenario, as in `analyse()`. */
 export interface WorkerAnalysisOptions {
@@ -56,12 +60,15 @@ export function runAnalysisInWorker(
   const { signal, onProgress } = hooks;
   if (signal?.aborted) return Promise.reject(new AnalysisCancelledError('start'));
   return new Promise<AnalysisResult>((resolve, reject) => {
-    const input: AnalysisWorkerInput = { model, fail: options.fail, failCountry: options.failCountry };
+    const { fail, failCountry } = options;
+    const input: AnalysisWorkerInput = { model, fail, failCountry };
     const worker = new Worker(bootstrap, {
       eval: true,
       workerData: input,
       // tsx resolves the @keelson/* aliases from this tsconfig whatever the working directory.
-      env: existsSync(tsconfigPath) ? { ...process.env, TSX_TSCONFIG_PATH: tsconfigPath } : process.env,
+      env: existsSync(tsconfigPath)
+        ? { ...process.env, TSX_TSCONFIG_PATH: tsconfigPath }
+        : process.env,
     });
     let stage = 'start';
     let settled = false;
@@ -88,7 +95,8 @@ export function runAnalysisInWorker(
     });
     worker.on('error', (error) => finish(() => reject(error)));
     worker.on('exit', (code) => {
-      finish(() => reject(new Error(`Analysis worker stopped with exit code ${code} before a result`)));
+      const error = new Error(`Analysis worker stopped with exit code ${code} before a result`);
+      finish(() => reject(error));
     });
   });
 }
@@ -99,7 +107,9 @@ function revive(error: SerialisedError): Error {
   if (error.name === 'ConvergenceError') {
     return new ConvergenceError(error.measure ?? 'unknown', error.iterations ?? 0);
   }
-  if (error.name === 'AnalysisCancelledError') return new AnalysisCancelledError(error.stage ?? 'unknown');
+  if (error.name === 'AnalysisCancelledError') {
+    return new AnalysisCancelledError(error.stage ?? 'unknown');
+  }
   const revived = new Error(error.message);
   revived.name = error.name;
   return revived;

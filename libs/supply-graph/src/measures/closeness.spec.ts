@@ -60,7 +60,9 @@ describe('closenessCentrality (multi-source)', () => {
     fc.assert(
       fc.property(graphs, fc.integer({ min: 1, max: 3 }), (graph, words) => {
         const scores = closenessCentrality(graph, { wordsPerPass: words });
-        for (let v = 0; v < graph.n; v++) expect(scores[v]).toBeCloseTo(plainCloseness(graph, v), 12);
+        for (let v = 0; v < graph.n; v++) {
+          expect(scores[v]).toBeCloseTo(plainCloseness(graph, v), 12);
+        }
       }),
       { numRuns: 150 },
     );

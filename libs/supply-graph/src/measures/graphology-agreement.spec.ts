@@ -60,7 +60,9 @@ function expectSame(
 ): void {
   for (const [id, value] of Object.entries(theirs)) {
     const actual = ours[pair.ours.indexOf.get(id)!]!;
-    if (Math.abs(actual - value) > tolerance) throw new Error(`${id}: ours ${actual}, graphology ${value}`);
+    if (Math.abs(actual - value) > tolerance) {
+      throw new Error(`${id}: ours ${actual}, graphology ${value}`);
+    }
   }
   expect(Object.keys(theirs)).toHaveLength(pair.ours.n);
 }

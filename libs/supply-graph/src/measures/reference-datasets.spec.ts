@@ -109,7 +109,7 @@ describe('networkx reference subset_dag.json (betweenness_centrality_subset)', (
   it('equals networkx from the sources, unhalved on a directed graph', () => {
     expectScores(graph, betweennessSubset(graph, { sources, targets }), expected);
   });
-  it('equals a brute-force count when searching from the smaller target set (reversed graph)', () => {
+  it('equals a brute-force count when searching from fewer targets (reversed graph)', () => {
     // One target and two sources: the search starts at the target on the reversed graph.
     const one = Int32Array.from(targets.slice(0, 1));
     const scores = betweennessSubset(graph, { sources, targets: one });

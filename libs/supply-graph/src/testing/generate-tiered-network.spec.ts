@@ -45,7 +45,8 @@ describe('generateTieredNetwork', () => {
     expect(cyclic(3)).toBe(true);
   });
   it('leaves unsourced parts when asked, so some products are down at baseline', () => {
-    const graph = buildSupplyGraph(generateTieredNetwork({ seed: 8, suppliers: 300, unsourcedShare: 0.5 }));
+    const model = generateTieredNetwork({ seed: 8, suppliers: 300, unsourcedShare: 0.5 });
+    const graph = buildSupplyGraph(model);
     expect(graph.productNodes.some((node) => graph.baselineDown[node] === 1)).toBe(true);
   });
 });
