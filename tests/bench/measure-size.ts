@@ -5,7 +5,13 @@
  */
 import Graph from 'graphology';
 import betweennessCentrality from 'graphology-metrics/centrality/betweenness';
-import { analyse, betweenness, buildSupplyGraph, impactOf, type SupplyGraph } from '@keelson/supply-graph';
+import {
+  analyse,
+  betweenness,
+  buildSupplyGraph,
+  impactOf,
+  type SupplyGraph,
+} from '@keelson/supply-graph';
 import { generateTieredNetwork } from '@keelson/supply-graph/testing';
 
 /** What one size reports. */
@@ -89,7 +95,8 @@ function timeOneAtATime(graph: SupplyGraph, sample: number, bitParallelSeconds: 
   for (let i = 0; i < count; i++) impactOf(graph, [graph.supplierCodes[Math.floor(i * step)]!]);
   const secondsPerSupplier = (performance.now() - started) / 1000 / count;
   const extrapolatedSeconds = secondsPerSupplier * graph.supplierCodes.length;
-  return { sample: count, secondsPerSupplier, extrapolatedSeconds, speedUp: extrapolatedSeconds / bitParallelSeconds };
+  const speedUp = extrapolatedSeconds / bitParallelSeconds;
+  return { sample: count, secondsPerSupplier, extrapolatedSeconds, speedUp };
 }
 
 function timeGraphology(graph: SupplyGraph, subsetSeconds: number): SizeResult['graphology'] {
@@ -98,7 +105,9 @@ function timeGraphology(graph: SupplyGraph, subsetSeconds: number): SizeResult['
       seconds: null,
       ourAllPairsSeconds: null,
       speedUpOfSubset: null,
-      note: `skipped: nodes x edges = ${(graph.n * graph.edgeCount).toExponential(1)} > ${GRAPHOLOGY_LIMIT.toExponential(0)}`,
+      note:
+        `skipped: nodes x edges = ${(graph.n * graph.edgeCount).toExponential(1)} > ` +
+        GRAPHOLOGY_LIMIT.toExponential(0),
     };
   }
   const copy = new Graph({ type: 'directed' });

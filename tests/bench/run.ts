@@ -42,7 +42,10 @@ if (values.child !== undefined) {
     process.stderr.write(`size ${size}: running in a child process...\n`);
     const output = execFileSync(
       process.execPath,
-      ['--import', 'tsx', '--expose-gc', join(here, 'run.ts'), '--child', String(size), '--sample', values.sample],
+      [
+        '--import', 'tsx', '--expose-gc', join(here, 'run.ts'),
+        '--child', String(size), '--sample', values.sample,
+      ],
       { encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'], maxBuffer: 1 << 24 },
     );
     results.push(JSON.parse(output.trim().split('\n').at(-1)!) as SizeResult);
@@ -55,7 +58,8 @@ if (values.child !== undefined) {
   };
   writeFileSync(join(here, 'results.json'), `${JSON.stringify(report, null, 2)}\n`);
   process.stdout.write(formatTable(results));
-  process.stdout.write(`\nMachine: ${machine.cores} x ${machine.cpu}, ${machine.memoryGb} GB, Node ${machine.node}, `);
+  const { cores, cpu, memoryGb, node } = machine;
+  process.stdout.write(`\nMachine: ${cores} x ${cpu}, ${memoryGb} GB, Node ${node}, `);
   process.stdout.write(`load average at start ${machine.loadAverageAtStart.join(' / ')}\n`);
   process.stdout.write(`Wrote ${join(here, 'results.json')}\n`);
 }

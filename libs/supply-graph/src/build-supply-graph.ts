@@ -55,7 +55,9 @@ export function buildSupplyGraph(model: SupplyModel): SupplyGraph {
     return plain('product', productId(product.code), product.code, product.plantCode);
   });
   const suppliers = [...model.suppliers].sort((a, b) => compareCodePoints(a.code, b.code));
-  const supplierNodes = Int32Array.from(suppliers, (s) => plain('supplier', supplierId(s.code), s.code));
+  const supplierNodes = Int32Array.from(suppliers, (s) =>
+    plain('supplier', supplierId(s.code), s.code),
+  );
   const supplierOrdinalOf = new Map(suppliers.map((s, ordinal) => [s.code, ordinal] as const));
   const productSet = new Set(products.map((p) => p.code));
 
@@ -72,7 +74,8 @@ export function buildSupplyGraph(model: SupplyModel): SupplyGraph {
     const existing = indexOf.get(id);
     if (existing !== undefined) return existing;
     const isMade = buyerKind === 'plant' && hasChildren(item);
-    const index = addNode({ id, kind: 'item', code: item, buyer, buyerKind, isMade, isBought: !isMade });
+    const isBought = !isMade;
+    const index = addNode({ id, kind: 'item', code: item, buyer, buyerKind, isMade, isBought });
     if (buyerKind === 'supplier') {
       from.push(index);
       to.push(supplierNodes[supplierOrdinalOf.get(buyer)!]!);
@@ -88,7 +91,11 @@ export function buildSupplyGraph(model: SupplyModel): SupplyGraph {
       throw new Error(`${where}: supplier_code ${row.supplierCode} is not a supplier`);
     }
     const buyerOrdinal = supplierOrdinalOf.get(row.buyerCode);
-    const buyerKind = plantSet.has(row.buyerCode) ? 'plant' : buyerOrdinal !== undefined ? 'supplier' : null;
+    const buyerKind = plantSet.has(row.buyerCode)
+      ? 'plant'
+      : buyerOrdinal !== undefined
+        ? 'supplier'
+        : null;
     if (buyerKind === null) {
       throw new Error(`${where}: buyer_code ${row.buyerCode} is neither a plant nor a supplier`);
     }

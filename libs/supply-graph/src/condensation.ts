@@ -22,7 +22,7 @@ export interface Condensation {
   readonly componentStart: Int32Array;
 }
 
-/** Tarjan's SCCs of a directed CSR graph, numbered so that every edge u->v has comp(u) <= comp(v). */
+/** Tarjan's SCCs of a directed CSR graph, numbered so each edge u->v has comp(u) <= comp(v). */
 export function condense(graph: CsrGraph): Condensation {
   const { n, offsets, targets } = graph;
   const index = new Int32Array(n).fill(-1);

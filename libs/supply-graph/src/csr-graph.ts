@@ -107,7 +107,7 @@ function dedupe(graph: CsrGraph): CsrGraph {
   return { n, offsets: outOffsets, targets: trimmed, directed: graph.directed };
 }
 
-/** The reverse of a directed graph (in-neighbours as CSR); an undirected graph is returned as is. */
+/** The reverse of a directed graph (in-neighbours as CSR); an undirected graph comes back as is. */
 export function reverseCsr(graph: CsrGraph): CsrGraph {
   if (!graph.directed) return graph;
   const { n, offsets, targets } = graph;

@@ -14,7 +14,11 @@ export type {
   ScenarioResult,
   SupplierResult,
 } from './analysis-result';
-export { allSingleImpacts, type SingleImpact, type SingleImpactOptions } from './all-single-impacts';
+export {
+  allSingleImpacts,
+  type SingleImpact,
+  type SingleImpactOptions,
+} from './all-single-impacts';
 export { buildSupplyGraph } from './build-supply-graph';
 export { compareCodePoints } from './code-order';
 export { condense, type Condensation } from './condensation';
@@ -42,7 +46,11 @@ export {
   betweennessSubset,
   type BetweennessSubsetOptions,
 } from './measures/betweenness-subset';
-export { CLOSENESS_DEFAULTS, closenessCentrality, type ClosenessOptions } from './measures/closeness';
+export {
+  CLOSENESS_DEFAULTS,
+  closenessCentrality,
+  type ClosenessOptions,
+} from './measures/closeness';
 export { DEGREE_DEFAULTS, degreeCentrality, type DegreeOptions } from './measures/degree';
 export {
   EIGENVECTOR_DEFAULTS,

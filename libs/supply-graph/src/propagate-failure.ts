@@ -8,7 +8,10 @@ import { UnknownSupplierError } from './errors';
 import { NODE_RULE, type SupplyGraph } from './supply-graph';
 
 /** The parts of the graph propagation reads. */
-export type PropagationIndex = Pick<SupplyGraph, 'n' | 'offsets' | 'targets' | 'inOffsets' | 'rule'>;
+export type PropagationIndex = Pick<
+  SupplyGraph,
+  'n' | 'offsets' | 'targets' | 'inOffsets' | 'rule'
+>;
 
 /**
  * Down flags (1 = down) when the nodes in `seeds` fail: rule 1 of spec 3 for the seeds, rules

@@ -50,7 +50,9 @@ export function betweennessSubset(
   const sources = options.sources ?? (supply ? supplySources(supply) : undefined);
   const targets = options.targets ?? supply?.productNodes;
   if (!sources || !targets) {
-    throw new Error('betweennessSubset: give sources and targets for a graph that is not a SupplyGraph');
+    throw new Error(
+      'betweennessSubset: give sources and targets for a graph that is not a SupplyGraph',
+    );
   }
   const { n } = graph;
   const isSource = membership(n, sources, 'sources');
@@ -73,7 +75,8 @@ export function betweennessSubset(
     workspace.accumulate(searched, scores, ends);
     done++;
   }
-  const scale = subsetScale(n, options.normalized ?? BETWEENNESS_SUBSET_DEFAULTS.normalized, graph.directed);
+  const normalized = options.normalized ?? BETWEENNESS_SUBSET_DEFAULTS.normalized;
+  const scale = subsetScale(n, normalized, graph.directed);
   if (scale !== 1) for (let v = 0; v < n; v++) scores[v]! *= scale;
   options.onProgress?.(1);
   return scores;
@@ -97,7 +100,9 @@ function membership(n: number, nodes: ArrayLike<number>, name: string): Uint8Arr
 }
 
 function reversedOf(graph: CsrGraph, supply: SupplyGraph | undefined): CsrGraph {
-  if (supply) return { n: supply.n, offsets: supply.inOffsets, targets: supply.inSources, directed: true };
+  if (supply) {
+    return { n: supply.n, offsets: supply.inOffsets, targets: supply.inSources, directed: true };
+  }
   return reverseCsr(graph);
 }
 

@@ -82,7 +82,8 @@ function inSearchOrder(
 ): Int32Array {
   const { n, offsets, targets } = graph;
   const isRequested = new Uint8Array(n);
-  const requested = nodes === undefined ? Int32Array.from({ length: n }, (_, v) => v) : Int32Array.from(nodes);
+  const requested =
+    nodes === undefined ? Int32Array.from({ length: n }, (_, v) => v) : Int32Array.from(nodes);
   requested.forEach((v, i) => {
     if (!Number.isInteger(v) || v < 0 || v >= n) {
       throw new RangeError(`closenessCentrality: node ${nodes?.[i]} is not a node index`);
@@ -163,8 +164,8 @@ class MultiSourceSearch {
 
   run(sources: Int32Array, count: number): void {
     const { offsets, targets } = this.graph;
-    const { seen, visit, visitNext, isQueued, isComplete, liveWords, full, counter, words, slices } =
-      this;
+    const { seen, visit, visitNext, isQueued, isComplete, liveWords, full } = this;
+    const { counter, words, slices } = this;
     seen.fill(0);
     isComplete.fill(0);
     for (let j = 0; j < words; j++) {
@@ -256,7 +257,9 @@ class MultiSourceSearch {
       const base = (i >>> 5) * slices;
       const bit = i & 31;
       let reachedAtLevel = 0;
-      for (let k = 0; k < slices; k++) reachedAtLevel += ((counter[base + k]! >>> bit) & 1) * 2 ** k;
+      for (let k = 0; k < slices; k++) {
+        reachedAtLevel += ((counter[base + k]! >>> bit) & 1) * 2 ** k;
+      }
       this.reached[i]! += reachedAtLevel;
       this.distanceSum[i]! += reachedAtLevel * level;
     }

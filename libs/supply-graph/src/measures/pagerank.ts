@@ -34,7 +34,9 @@ export function pagerank(graph: CsrGraph, options: PagerankOptions = {}): Float6
   const alpha = options.alpha ?? PAGERANK_DEFAULTS.alpha;
   const maxIterations = options.maxIterations ?? PAGERANK_DEFAULTS.maxIterations;
   const tolerance = options.tolerance ?? PAGERANK_DEFAULTS.tolerance;
-  if (!(alpha >= 0 && alpha <= 1)) throw new RangeError(`pagerank: alpha ${alpha} is not in [0, 1]`);
+  if (!(alpha >= 0 && alpha <= 1)) {
+    throw new RangeError(`pagerank: alpha ${alpha} is not in [0, 1]`);
+  }
   const { n, offsets, targets } = graph;
   let x = new Float64Array(n).fill(1 / n);
   let last = new Float64Array(n);

@@ -31,7 +31,12 @@ export function compactModel(compact: CompactModel): SupplyModel {
       weeklyRevenue,
       row: i + 2,
     })),
-    bom: compact.bom.map(([parentCode, childCode], i) => ({ parentCode, childCode, qtyPer: 1, row: i + 2 })),
+    bom: compact.bom.map(([parentCode, childCode], i) => ({
+      parentCode,
+      childCode,
+      qtyPer: 1,
+      row: i + 2,
+    })),
     suppliers: compact.suppliers.map((entry, i) => {
       const [code, recoveryWeeks, country] = typeof entry === 'string' ? [entry, 8, 'DE'] : entry;
       return {
@@ -46,12 +51,12 @@ export function compactModel(compact: CompactModel): SupplyModel {
         row: i + 2,
       };
     }),
-    sourcing: compact.sourcing.map(([buyerCode, itemCode, supplierCode, isQualified = true], i) => ({
+    sourcing: compact.sourcing.map(([buyerCode, itemCode, supplierCode, qualified], i) => ({
       buyerCode,
       itemCode,
       supplierCode,
       sharePct: null,
-      isQualified,
+      isQualified: qualified ?? true,
       row: i + 2,
     })),
     stock: (compact.stock ?? []).map(([plantCode, itemCode, weeksOfCover], i) => ({

@@ -58,7 +58,8 @@ export function generateTieredNetwork(options: TieredNetworkOptions): SupplyMode
   const random = mulberry32(options.seed);
   const supplierCount = Math.max(1, Math.floor(options.suppliers));
   const plantCount = Math.max(1, options.plants ?? Math.round(supplierCount / 1000));
-  const productCount = Math.max(1, options.products ?? clamp(Math.round(supplierCount / 100), 4, 500));
+  const defaultProducts = clamp(Math.round(supplierCount / 100), 4, 500);
+  const productCount = Math.max(1, options.products ?? defaultProducts);
   const tierCount = Math.max(1, Math.min(options.tiers ?? 4, supplierCount));
   const dual = options.dualSourcedShare ?? 0.3;
   const unqualified = options.unqualifiedShare ?? 0.05;
@@ -131,7 +132,9 @@ export function generateTieredNetwork(options: TieredNetworkOptions): SupplyMode
       row: sourcing.length + 2,
     });
   const plantNodes: Array<[string, string]> = [];
-  for (const [plant, parts] of partsAtPlant) for (const part of parts) plantNodes.push([plant, part]);
+  for (const [plant, parts] of partsAtPlant) {
+    for (const part of parts) plantNodes.push([plant, part]);
+  }
   const sourced = plantNodes.filter(() => random() >= unsourced);
   assignSources(random, sourced, tierOne, dual, unqualified, addRow);
 
@@ -143,7 +146,9 @@ export function generateTieredNetwork(options: TieredNetworkOptions): SupplyMode
   for (let k = 0; k + 1 < tiers.length; k++) {
     const pairs: Array<[string, string]> = [];
     for (const buyer of tiers[k]!) {
-      for (let j = 0; j < perBuyer; j++) pairs.push([buyer.code, `CM-${k + 2}-${pad(pairs.length + 1, 7)}`]);
+      for (let j = 0; j < perBuyer; j++) {
+        pairs.push([buyer.code, `CM-${k + 2}-${pad(pairs.length + 1, 7)}`]);
+      }
     }
     assignSources(random, pairs, tiers[k + 1]!, dual, unqualified, addRow);
   }
@@ -158,7 +163,8 @@ export function generateTieredNetwork(options: TieredNetworkOptions): SupplyMode
   const stock: StockRow[] = [];
   for (const [plantCode, itemCode] of plantNodes) {
     if (random() < stockShare) {
-      stock.push({ plantCode, itemCode, weeksOfCover: randomInt(random, 0, 16) / 2, row: stock.length + 2 });
+      const weeksOfCover = randomInt(random, 0, 16) / 2;
+      stock.push({ plantCode, itemCode, weeksOfCover, row: stock.length + 2 });
     }
   }
   return { plants, products, bom, suppliers, sourcing, stock };
@@ -193,10 +199,11 @@ function splitTiers(suppliers: Supplier[], tierCount: number): Supplier[][] {
   let start = 0;
   for (let k = 0; k < tierCount; k++) {
     const remainingTiers = tierCount - k - 1;
+    const share = Math.round((suppliers.length * weights[k]!) / total);
     const size =
       k === tierCount - 1
         ? suppliers.length - start
-        : Math.max(1, Math.min(suppliers.length - start - remainingTiers, Math.round((suppliers.length * weights[k]!) / total)));
+        : Math.max(1, Math.min(suppliers.length - start - remainingTiers, share));
     tiers.push(suppliers.slice(start, start + size));
     start += size;
   }

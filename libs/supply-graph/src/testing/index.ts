@@ -12,5 +12,6 @@ export {
   WORKED_EXAMPLE,
   WORKED_EXAMPLE_EXPECTED,
   type WorkedProduct,
+  type WorkedScenario,
   type WorkedSupplier,
 } from './worked-example';

@@ -53,7 +53,12 @@ export const WORKED_EXAMPLE: SupplyModel = {
   bom: [
     ['F1', 'A1'], ['F1', 'I3'], ['A1', 'I1'], ['A1', 'I2'], ['F2', 'I2'], ['F2', 'I4'],
     ['F3', 'I4'], ['F3', 'I5'], ['F4', 'I5'], ['F4', 'I6'],
-  ].map(([parentCode, childCode], i) => ({ parentCode: parentCode!, childCode: childCode!, qtyPer: 1, row: i + 2 })),
+  ].map(([parentCode, childCode], i) => ({
+    parentCode: parentCode!,
+    childCode: childCode!,
+    qtyPer: 1,
+    row: i + 2,
+  })),
   suppliers: [
     supplier('S1', 'DE', 'Europe', 6, 2),
     supplier('S2', 'CN', 'Asia', 10, 3),
@@ -116,23 +121,51 @@ const lost = (code: string, timeToSurvive: number, lostWeeks: number): WorkedPro
   lostWeeks,
 });
 
+const row = (
+  code: string,
+  tier: number | null,
+  timeToRecover: number,
+  products: WorkedProduct[],
+  revenueExposedPerWeek: number,
+  revenueImpact: number,
+  betweenness: number,
+): WorkedSupplier => ({
+  code,
+  tier,
+  timeToRecover,
+  products,
+  revenueExposedPerWeek,
+  revenueImpact,
+  betweenness,
+});
+
+/** The hand-computed scenario of the worked example. */
+export interface WorkedScenario {
+  failed: string[];
+  timeToRecover: number;
+  products: WorkedProduct[];
+  revenueExposedPerWeek: number;
+  revenueImpact: number;
+}
+
 /** The hand computation of docs/methods.md, one row per supplier, by code. */
 export const WORKED_EXAMPLE_EXPECTED: {
   suppliers: WorkedSupplier[];
   productsDownAtBaseline: string[];
   /** `failCountry: ' cn '` fails S2 and S3 (trimmed, case-insensitive). */
-  scenarioCn: { failed: string[]; timeToRecover: number; products: WorkedProduct[]; revenueExposedPerWeek: number; revenueImpact: number };
+  scenarioCn: WorkedScenario;
 } = {
   suppliers: [
-    { code: 'S1', tier: 1, timeToRecover: 6, products: [lost('F1', 2, 4)], revenueExposedPerWeek: 50_000, revenueImpact: 200_000, betweenness: 0 },
-    { code: 'S2', tier: 1, timeToRecover: 10, products: [], revenueExposedPerWeek: 0, revenueImpact: 0, betweenness: 1 },
-    { code: 'S3', tier: 1, timeToRecover: 4, products: [], revenueExposedPerWeek: 0, revenueImpact: 0, betweenness: 1 },
-    { code: 'S4', tier: 2, timeToRecover: 12, products: [lost('F1', 1, 11), lost('F2', 1, 11)], revenueExposedPerWeek: 80_000, revenueImpact: 880_000, betweenness: 0 },
-    { code: 'S5', tier: 1, timeToRecover: 8, products: [lost('F1', 4, 4)], revenueExposedPerWeek: 50_000, revenueImpact: 200_000, betweenness: 0 },
-    { code: 'S6', tier: 2, timeToRecover: 5, products: [lost('F1', 4, 1)], revenueExposedPerWeek: 50_000, revenueImpact: 50_000, betweenness: 0 },
-    { code: 'S7', tier: 1, timeToRecover: 3, products: [lost('F2', 0, 3)], revenueExposedPerWeek: 30_000, revenueImpact: 90_000, betweenness: 0 },
-    { code: 'S8', tier: 1, timeToRecover: 9, products: [lost('F3', 6, 3)], revenueExposedPerWeek: 20_000, revenueImpact: 60_000, betweenness: 0 },
-    { code: 'S9', tier: null, timeToRecover: 8, products: [], revenueExposedPerWeek: 0, revenueImpact: 0, betweenness: 0 },
+    // code, tier, TTR, lost products (TTS, lost weeks), exposed per week, impact, betweenness
+    row('S1', 1, 6, [lost('F1', 2, 4)], 50_000, 200_000, 0),
+    row('S2', 1, 10, [], 0, 0, 1),
+    row('S3', 1, 4, [], 0, 0, 1),
+    row('S4', 2, 12, [lost('F1', 1, 11), lost('F2', 1, 11)], 80_000, 880_000, 0),
+    row('S5', 1, 8, [lost('F1', 4, 4)], 50_000, 200_000, 0),
+    row('S6', 2, 5, [lost('F1', 4, 1)], 50_000, 50_000, 0),
+    row('S7', 1, 3, [lost('F2', 0, 3)], 30_000, 90_000, 0),
+    row('S8', 1, 9, [lost('F3', 6, 3)], 20_000, 60_000, 0),
+    row('S9', null, 8, [], 0, 0, 0),
   ],
   productsDownAtBaseline: ['F4'],
   scenarioCn: {
