@@ -1,2 +1,4 @@
 export * from './auth';
+export * from './imports';
+export * from './network';
 export * from './supply-model';

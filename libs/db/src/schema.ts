@@ -8,10 +8,12 @@
  */
 import { sql } from 'drizzle-orm';
 import {
+  blob,
   check,
   index,
   integer,
   primaryKey,
+  real,
   sqliteTable,
   text,
   uniqueIndex,
@@ -118,6 +120,283 @@ export const appSettings = sqliteTable('app_settings', {
   updatedAt: text('updated_at').notNull(),
 });
 
+/** A problem as stored with its batch: spec 8.17's fields plus the cell reference. */
+export interface StoredProblem {
+  sheet: string | null;
+  row: number | null;
+  column: string | null;
+  value: string | number | boolean | null;
+  message: string;
+  cell?: string;
+  /** Warning kind (spec 8.16); absent for errors. */
+  kind?: string;
+}
+
+/** Import statuses; the same list as `IMPORT_STATUSES` in `@keelson/contracts`. */
+export const IMPORT_STATUS_VALUES = ['needs_mapping', 'rejected', 'ready', 'committed'] as const;
+
+/** Saved column mappings, offered again for files with the same headers. */
+export const importMappings = sqliteTable(
+  'import_mappings',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    name: text('name').notNull(),
+    /** SHA-256 (hex) of the file's sheet names and header rows. */
+    headerSignature: text('header_signature').notNull(),
+    /** A `WorkbookMapping` as JSON. */
+    mapping: text('mapping', { mode: 'json' }).$type<Record<string, unknown>>().notNull(),
+    createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: text('created_at').notNull(),
+    lastUsedAt: text('last_used_at'),
+  },
+  (table) => [
+    uniqueIndex('import_mappings_name_unique').on(table.name),
+    index('import_mappings_signature_index').on(table.headerSignature),
+  ],
+);
+
+/** Every upload, kept even when rejected: who, when, what file, and every problem found. */
+export const importBatches = sqliteTable(
+  'import_batches',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    status: text('status', { enum: IMPORT_STATUS_VALUES }).notNull(),
+    fileName: text('file_name').notNull(),
+    fileSize: integer('file_size').notNull(),
+    /** SHA-256 (hex) of the uploaded bytes. */
+    sha256: text('sha256').notNull(),
+    /** Told by content; null when the file is not a spreadsheet at all. */
+    format: text('format', { enum: ['xlsx', 'csv', 'zip'] }),
+    headerSignature: text('header_signature'),
+    /** The mapping of the last check (a `WorkbookMapping`), or null for the template's names. */
+    mapping: text('mapping', { mode: 'json' }).$type<Record<string, unknown>>(),
+    mappingId: integer('mapping_id').references(() => importMappings.id, {
+      onDelete: 'set null',
+    }),
+    /** `[{name, rowCount}]` of every sheet of the file. */
+    sheets: text('sheets', { mode: 'json' })
+      .$type<{ name: string; rowCount: number }[]>()
+      .notNull(),
+    /** Data rows read per template sheet. */
+    counts: text('counts', { mode: 'json' }).$type<Record<string, number>>().notNull(),
+    errors: text('errors', { mode: 'json' }).$type<StoredProblem[]>().notNull(),
+    warnings: text('warnings', { mode: 'json' }).$type<StoredProblem[]>().notNull(),
+    errorCount: integer('error_count').notNull(),
+    warningCount: integer('warning_count').notNull(),
+    createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: text('created_at').notNull(),
+    committedAt: text('committed_at'),
+  },
+  (table) => [
+    index('import_batches_created_index').on(table.createdAt),
+    index('import_batches_sha_index').on(table.sha256),
+    check(
+      'import_batches_status_known',
+      sql`${table.status} in ('needs_mapping', 'rejected', 'ready', 'committed')`,
+    ),
+  ],
+);
+
+/** The uploaded bytes of a batch, kept so it can be mapped, checked again and committed. */
+export const importFiles = sqliteTable('import_files', {
+  batchId: integer('batch_id')
+    .primaryKey()
+    .references(() => importBatches.id, { onDelete: 'cascade' }),
+  data: blob('data', { mode: 'buffer' }).notNull(),
+});
+
+/** A committed network: every row below belongs to exactly one version and never changes. */
+export const networkVersions = sqliteTable(
+  'network_versions',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    label: text('label').notNull(),
+    importBatchId: integer('import_batch_id')
+      .notNull()
+      .references(() => importBatches.id),
+    previousVersionId: integer('previous_version_id'),
+    /** `NetworkVersionDto['counts']` as JSON. */
+    counts: text('counts', { mode: 'json' }).$type<Record<string, number>>().notNull(),
+    /** `NetworkChangesDto` against the previous version, as JSON. */
+    changes: text('changes', { mode: 'json' }).$type<Record<string, unknown>>().notNull(),
+    createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: text('created_at').notNull(),
+  },
+  (table) => [uniqueIndex('network_versions_batch_unique').on(table.importBatchId)],
+);
+
+const versionRef = () =>
+  integer('version_id')
+    .notNull()
+    .references(() => networkVersions.id, { onDelete: 'cascade' });
+/** Extra columns of a spreadsheet row, by header. */
+const attributesColumn = () =>
+  text('attributes', { mode: 'json' }).$type<Record<string, string>>();
+
+/** Plants of a network version (sheet Plants). */
+export const networkPlants = sqliteTable(
+  'network_plants',
+  {
+    versionId: versionRef(),
+    code: text('code').notNull(),
+    name: text('name').notNull(),
+    country: text('country').notNull(),
+    row: integer('row'),
+    attributes: attributesColumn(),
+  },
+  (table) => [primaryKey({ columns: [table.versionId, table.code] })],
+);
+
+/** Products of a network version (sheet Products). */
+export const networkProducts = sqliteTable(
+  'network_products',
+  {
+    versionId: versionRef(),
+    code: text('code').notNull(),
+    plantCode: text('plant_code').notNull(),
+    name: text('name').notNull(),
+    weeklyRevenue: real('weekly_revenue').notNull(),
+    row: integer('row'),
+    attributes: attributesColumn(),
+  },
+  (table) => [
+    primaryKey({ columns: [table.versionId, table.code] }),
+    index('network_products_plant_index').on(table.versionId, table.plantCode),
+  ],
+);
+
+/**
+ * Items of a network version, derived at commit: one row per (item, holder), where the holder is
+ * the plant that makes or buys it or the supplier that buys it (spec section 2's item nodes).
+ */
+export const networkItems = sqliteTable(
+  'network_items',
+  {
+    versionId: versionRef(),
+    code: text('code').notNull(),
+    holderCode: text('holder_code').notNull(),
+    holderKind: text('holder_kind', { enum: ['plant', 'supplier'] }).notNull(),
+    kind: text('kind', { enum: ['made', 'bought'] }).notNull(),
+    qualifiedSources: integer('qualified_sources').notNull(),
+    usedIn: integer('used_in').notNull(),
+    weeksOfCover: real('weeks_of_cover'),
+  },
+  (table) => [
+    primaryKey({ columns: [table.versionId, table.holderCode, table.code] }),
+    index('network_items_code_index').on(table.versionId, table.code),
+  ],
+);
+
+/** BOM lines of a network version (sheet BOM). */
+export const networkBomLines = sqliteTable(
+  'network_bom_lines',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    parentCode: text('parent_code').notNull(),
+    childCode: text('child_code').notNull(),
+    qtyPer: real('qty_per').notNull(),
+    row: integer('row'),
+    attributes: attributesColumn(),
+  },
+  (table) => [
+    index('network_bom_parent_index').on(table.versionId, table.parentCode),
+    index('network_bom_child_index').on(table.versionId, table.childCode),
+  ],
+);
+
+/** Suppliers of a network version (sheet Suppliers), with the tier computed at commit. */
+export const networkSuppliers = sqliteTable(
+  'network_suppliers',
+  {
+    versionId: versionRef(),
+    code: text('code').notNull(),
+    name: text('name').notNull(),
+    country: text('country').notNull(),
+    region: text('region').notNull(),
+    recoveryWeeks: real('recovery_weeks').notNull(),
+    financialHealth: integer('financial_health'),
+    deliveryScore: integer('delivery_score'),
+    hasContinuityPlan: integer('has_continuity_plan', { mode: 'boolean' }),
+    /** Spec section 2's tier; null when the supplier reaches no plant. */
+    tier: integer('tier'),
+    row: integer('row'),
+    attributes: attributesColumn(),
+  },
+  (table) => [
+    primaryKey({ columns: [table.versionId, table.code] }),
+    index('network_suppliers_country_index').on(table.versionId, table.country),
+    index('network_suppliers_tier_index').on(table.versionId, table.tier),
+    index('network_suppliers_name_index').on(table.versionId, table.name),
+  ],
+);
+
+/** Which plants each supplier serves, directly or through other suppliers (derived at commit). */
+export const networkSupplierPlants = sqliteTable(
+  'network_supplier_plants',
+  {
+    versionId: versionRef(),
+    supplierCode: text('supplier_code').notNull(),
+    plantCode: text('plant_code').notNull(),
+  },
+  (table) => [
+    primaryKey({ columns: [table.versionId, table.supplierCode, table.plantCode] }),
+    index('network_supplier_plants_plant_index').on(table.versionId, table.plantCode),
+  ],
+);
+
+/** Sourcing rows of a network version (sheet Sourcing). */
+export const networkSourcing = sqliteTable(
+  'network_sourcing',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    buyerCode: text('buyer_code').notNull(),
+    itemCode: text('item_code').notNull(),
+    supplierCode: text('supplier_code').notNull(),
+    sharePct: real('share_pct'),
+    isQualified: integer('is_qualified', { mode: 'boolean' }).notNull(),
+    row: integer('row'),
+    attributes: attributesColumn(),
+  },
+  (table) => [
+    index('network_sourcing_supplier_index').on(table.versionId, table.supplierCode),
+    index('network_sourcing_buyer_index').on(table.versionId, table.buyerCode, table.itemCode),
+  ],
+);
+
+/** Stock rows of a network version (sheet Stock). */
+export const networkStock = sqliteTable(
+  'network_stock',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    versionId: versionRef(),
+    plantCode: text('plant_code').notNull(),
+    itemCode: text('item_code').notNull(),
+    weeksOfCover: real('weeks_of_cover').notNull(),
+    row: integer('row'),
+    attributes: attributesColumn(),
+  },
+  (table) => [index('network_stock_item_index').on(table.versionId, table.plantCode, table.itemCode)],
+);
+
+/** Countries and their hazard rating (1 low - 5 high); admins edit them. */
+export const countries = sqliteTable(
+  'countries',
+  {
+    /** ISO 3166-1 alpha-2. */
+    code: text('code').primaryKey(),
+    name: text('name').notNull(),
+    region: text('region').notNull(),
+    hazard: integer('hazard').notNull(),
+    /** True while the rating is the shipped, invented default. */
+    isDefault: integer('is_default', { mode: 'boolean' }).notNull().default(true),
+    updatedAt: text('updated_at').notNull(),
+    updatedBy: integer('updated_by').references(() => users.id, { onDelete: 'set null' }),
+  },
+  (table) => [check('countries_hazard_range', sql`${table.hazard} between 1 and 5`)],
+);
+
 /** A row of `users`. */
 export type UserRow = typeof users.$inferSelect;
 /** A new row of `users`. */
@@ -130,3 +409,11 @@ export type InvitationRow = typeof invitations.$inferSelect;
 export type MailMessageRow = typeof mailMessages.$inferSelect;
 /** A new row of `mail_messages`. */
 export type NewMailMessageRow = typeof mailMessages.$inferInsert;
+/** A row of `import_batches`. */
+export type ImportBatchRow = typeof importBatches.$inferSelect;
+/** A row of `network_versions`. */
+export type NetworkVersionRow = typeof networkVersions.$inferSelect;
+/** A row of `network_suppliers`. */
+export type NetworkSupplierRow = typeof networkSuppliers.$inferSelect;
+/** A row of `countries`. */
+export type CountryRow = typeof countries.$inferSelect;

@@ -4,7 +4,14 @@
  * a match and what required sheets or columns are still missing. Suggestions use the template's
  * names and common alternatives (field-aliases.ts); the buyer confirms them as a mapping.
  */
-import { SHEET_NAMES, type SheetName, type WorkbookError } from '@keelson/contracts';
+import {
+  SHEET_NAMES,
+  type InspectedSheet,
+  type SheetName,
+  type SheetSuggestion,
+  type WorkbookError,
+  type WorkbookInspection,
+} from '@keelson/contracts';
 import { FIELD_ALIASES, SHEET_ALIASES } from './field-aliases';
 import { loadCsvFiles, loadSource, type CsvFile, type LoadedSource } from './file-source';
 import { resolveLimits, type WorkbookLimits } from './limits';
@@ -21,42 +28,7 @@ import {
 import type { WorkbookMapping } from './sheet-layout';
 import { REQUIRED_SHEETS, TEMPLATE_FIELDS } from './template-fields';
 
-/** A sheet of the file as the mapping step shows it. */
-export interface InspectedSheet {
-  name: string;
-  /** Rows holding any value. */
-  rowCount: number;
-  /** The row that looks most like headers (1-based), or null for an empty sheet. */
-  headerRow: number | null;
-  headers: string[];
-  /** Up to 5 non-blank rows below the header row. */
-  sampleRows: (string | number | boolean | null)[][];
-}
-
-/** What the file offers for one template sheet. */
-export interface SheetSuggestion {
-  isRequired: boolean;
-  /** The file sheet that looks like this template sheet, or null. */
-  sheetName: string | null;
-  headerRow: number | null;
-  /** Template field -> the file's header that looks like it. */
-  columns: Record<string, string>;
-  /** Required fields with no matching header. */
-  missingColumns: string[];
-  /** Headers of the sheet not matched to a field (kept as attributes on import). */
-  unmatchedHeaders: string[];
-}
-
-/** The outcome of {@link inspectWorkbook}. */
-export interface WorkbookInspection {
-  format: LoadedSource['format'];
-  /** Errors that stop the file from being read at all (size, not a spreadsheet ...). */
-  errors: WorkbookError[];
-  sheets: InspectedSheet[];
-  suggestions: Record<SheetName, SheetSuggestion>;
-  /** Required template sheets with no suggested file sheet. */
-  missingSheets: SheetName[];
-}
+export type { InspectedSheet, SheetSuggestion, WorkbookInspection } from '@keelson/contracts';
 
 /** Options of {@link inspectWorkbook}. */
 export interface InspectOptions {

@@ -4,23 +4,18 @@
  * missing sheet or required column, two headers for one field) are errors located at the
  * header row; data rows are read elsewhere.
  */
-import { SHEET_NAMES, type SheetName, type WorkbookError } from '@keelson/contracts';
+import {
+  SHEET_NAMES,
+  type SheetMapping,
+  type SheetName,
+  type WorkbookError,
+  type WorkbookMapping,
+} from '@keelson/contracts';
 import { cellReference, nameKey } from './name-key';
 import { displayText, isBlank, type RawSheet } from './raw-sheet';
 import { REQUIRED_SHEETS, TEMPLATE_FIELDS } from './template-fields';
 
-/** How one template sheet is found in a buyer's file. */
-export interface SheetMapping {
-  /** The file's sheet to read for this template sheet. */
-  sheetName?: string;
-  /** The 1-based row that holds the headers; default 1. */
-  headerRow?: number;
-  /** Template field (snake_case) -> the file's header text for it. */
-  columns?: Record<string, string>;
-}
-
-/** Mappings of the template sheets that are not found by their own names. */
-export type WorkbookMapping = Partial<Record<SheetName, SheetMapping>>;
+export type { SheetMapping, WorkbookMapping } from '@keelson/contracts';
 
 /** An extra column, kept as an attribute under its header as written. */
 export interface ExtraColumn {
