@@ -21,6 +21,8 @@ import { createMailRouter } from './mail/mail.router';
 import { MailRepository } from './mail/mail.repository';
 import { MailService } from './mail/mail.service';
 import type { Mailer } from './mail/mailer';
+import { mountImportRoutes } from './imports/imports.module';
+import { mountNetworkRoutes } from './network/network.module';
 import { createPlantsRouter } from './plants/plants.router';
 import { PlantsRepository } from './plants/plants.repository';
 import { PlantsService } from './plants/plants.service';
@@ -99,6 +101,9 @@ export function createKeelsonApp(deps: AppDeps): KeelsonApp {
   app.use('/api/users', createUsersRouter(users));
   app.use('/api/plants', createPlantsRouter(plants));
   app.use('/api/admin/mail', createMailRouter(mail));
+  const featureDeps = { config, db, logger: deps.logger, now, plants: plantsRepository };
+  mountImportRoutes(app, featureDeps);
+  mountNetworkRoutes(app, featureDeps);
   app.use('/api', apiNotFoundHandler);
   serveWebClient(app, config.webRoot);
   app.use(errorHandler);
