@@ -31,6 +31,16 @@ export const routes: Routes = [
         loadComponent: () => import('./home/home-page').then((m) => m.HomePage),
       },
       {
+        path: 'imports',
+        canActivate: [navigationGuard('imports')],
+        loadChildren: () => import('./imports/imports.routes').then((m) => m.importsRoutes),
+      },
+      {
+        path: 'network',
+        canActivate: [navigationGuard('network')],
+        loadChildren: () => import('./network/network.routes').then((m) => m.networkRoutes),
+      },
+      {
         path: 'admin',
         loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes),
       },

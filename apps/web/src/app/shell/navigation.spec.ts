@@ -2,14 +2,15 @@ import { ROLES, type Role } from '@keelson/contracts';
 import { describe, expect, it } from 'vitest';
 import { NAVIGATION, type NavigationPath, navigationFor, rolesFor } from './navigation';
 
-// Expected entries per role, written out by hand from the product brief (Home for all; Users and
-// Sent mail for administrators only), not derived from NAVIGATION itself.
+// Expected entries per role, written out by hand from the product brief (Home and Network for
+// all; Import for buyers and administrators; Users, Sent mail and Countries for administrators),
+// not derived from NAVIGATION itself.
 const EXPECTED: Record<Role, string[]> = {
-  admin: ['Home', 'Users', 'Sent mail'],
-  buyer: ['Home'],
-  risk_manager: ['Home'],
-  plant_manager: ['Home'],
-  viewer: ['Home'],
+  admin: ['Home', 'Import', 'Network', 'Users', 'Sent mail', 'Countries'],
+  buyer: ['Home', 'Import', 'Network'],
+  risk_manager: ['Home', 'Network'],
+  plant_manager: ['Home', 'Network'],
+  viewer: ['Home', 'Network'],
 };
 
 describe('navigationFor', () => {

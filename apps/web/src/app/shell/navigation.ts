@@ -21,8 +21,11 @@ export interface NavigationEntry {
  */
 export const NAVIGATION = [
   { label: 'Home', icon: 'home', path: 'home', roles: ROLES },
+  { label: 'Import', icon: 'upload_file', path: 'imports', roles: ['buyer', 'admin'] },
+  { label: 'Network', icon: 'account_tree', path: 'network', roles: ROLES },
   { label: 'Users', icon: 'manage_accounts', path: 'admin/users', roles: ['admin'] },
   { label: 'Sent mail', icon: 'outgoing_mail', path: 'admin/mail', roles: ['admin'] },
+  { label: 'Countries', icon: 'public', path: 'admin/countries', roles: ['admin'] },
 ] as const satisfies readonly NavigationEntry[];
 
 /** A path that has an entry in {@link NAVIGATION}. */
