@@ -61,7 +61,11 @@ module.exports = {
       from: { path: '^(apps|tools|tests)/' },
       to: {
         path: '^libs/[^/]+/src/',
-        pathNot: ['^libs/[^/]+/src/index\\.ts$', '^libs/[^/]+/src/testing/index\\.ts$'],
+        pathNot: [
+          '^libs/[^/]+/src/index\\.ts$',
+          '^libs/[^/]+/src/testing/index\\.ts$',
+          '^libs/workbook/src/fields\\.ts$',
+        ],
       },
     },
     {

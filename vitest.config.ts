@@ -7,6 +7,7 @@ const here = (path: string) => fileURLToPath(new URL(path, import.meta.url));
 export const keelsonAliases = {
   '@keelson/contracts': here('./libs/contracts/src/index.ts'),
   '@keelson/db': here('./libs/db/src/index.ts'),
+  '@keelson/workbook/fields': here('./libs/workbook/src/fields.ts'),
   '@keelson/workbook': here('./libs/workbook/src/index.ts'),
   '@keelson/supply-graph/testing': here('./libs/supply-graph/src/testing/index.ts'),
   '@keelson/supply-graph': here('./libs/supply-graph/src/index.ts'),
