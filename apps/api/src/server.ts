@@ -11,6 +11,7 @@ import { createLogger } from './http/request-logging';
 import { startMailSink, type MailSink } from './mail/mail-sink';
 import { MailRepository } from './mail/mail.repository';
 import { createSmtpMailer } from './mail/mailer';
+import { importDemoNetwork } from './seed/demo-network';
 import { seedDemoWorkspace } from './seed/demo-workspace';
 import { inviteFirstAdmin } from './seed/first-admin';
 
@@ -18,7 +19,10 @@ import { inviteFirstAdmin } from './seed/first-admin';
 export interface StartServerOptions extends ConfigOverrides {
   /** The environment to read; `process.env` by default. */
   env?: Record<string, string | undefined>;
-  /** Runs after a demo seed of an empty database (the demo network import plugs in here). */
+  /**
+   * Runs after a demo seed of an empty database; by default it imports the demo network
+   * (`importDemoNetwork`). Tests pass their own to skip or observe it.
+   */
   afterSeed?: (db: KeelsonDatabase) => Promise<void> | void;
   rateLimits?: Partial<LoginRateLimits>;
 }
@@ -61,7 +65,13 @@ export async function startServer(options: StartServerOptions = {}): Promise<Run
     if (config.mode === 'demo') {
       const seeded = await seedDemoWorkspace(database.db, {
         hashPassword: createPasswordHasher(config.bcryptCost).hash,
-        afterSeed,
+        afterSeed: afterSeed ?? (async (db) => {
+          const imported = await importDemoNetwork(db, {
+            limits: { maxBytes: config.uploadMaxBytes },
+          });
+          logger.info({ networkVersionId: imported.networkVersionId, counts: imported.counts },
+            'imported the demo network');
+        }),
       });
       if (seeded.isSeeded) {
         logger.info(seeded, 'seeded the demo workspace (password keelson-demo)');

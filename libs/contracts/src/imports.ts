@@ -136,6 +136,23 @@ export interface ImportBatchDto {
   committedAt: string | null;
 }
 
+/** GET /api/imports query: a page of batches, newest first. */
+export const listImportBatchesQuerySchema = z.object({
+  limit: z.coerce.number().int().min(1).max(200).default(25),
+  offset: z.coerce.number().int().min(0).max(10_000_000).default(0),
+  status: z.enum(IMPORT_STATUSES).optional(),
+});
+/** GET /api/imports query. */
+export type ListImportBatchesQuery = z.infer<typeof listImportBatchesQuerySchema>;
+
+/** GET /api/import-mappings answer. */
+export interface ImportMappingListDto {
+  items: ImportMappingDto[];
+}
+
+/** 413 answer code of an upload over the size limit. */
+export const FILE_TOO_LARGE = 'file_too_large';
+
 /** POST /api/imports/:id/check body: check the stored file again with a mapping. */
 export const checkImportSchema = z.object({
   mapping: workbookMappingSchema.optional(),

@@ -16,6 +16,7 @@ import { createLogger } from '../http/request-logging';
 import { startMailSink, type MailSink } from '../mail/mail-sink';
 import { MailRepository } from '../mail/mail.repository';
 import { createSmtpMailer, type Mailer } from '../mail/mailer';
+import { importDemoNetwork } from '../seed/demo-network';
 import { DEMO_ACCOUNTS, seedDemoWorkspace } from '../seed/demo-workspace';
 
 /** The demo account e-mail of each role (plant manager: P-NORTH's). */
@@ -53,6 +54,10 @@ export interface TestAppOptions {
   rateLimits?: Partial<LoginRateLimits>;
   publicUrl?: string;
   webRoot?: string;
+  /** Import the demo network (`data/demo/keelson-demo.xlsx`) as the demo buyer after seeding. */
+  withDemoNetwork?: boolean;
+  /** The upload limit in bytes (`UPLOAD_MAX_BYTES`); 20 MB unless given. */
+  uploadMaxBytes?: number;
 }
 
 /** Builds a {@link TestApp}. */
@@ -66,6 +71,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
       publicUrl: options.publicUrl ?? 'http://keelson.test:4200',
       webRoot: options.webRoot ?? '/nonexistent/keelson-web-build',
       smtpUrl: null,
+      ...(options.uploadMaxBytes === undefined ? {} : { uploadMaxBytes: options.uploadMaxBytes }),
     },
   );
   const database = openDatabase(IN_MEMORY);
@@ -77,6 +83,12 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
   await seedDemoWorkspace(database.db, {
     hashPassword: createPasswordHasher(config.bcryptCost).hash,
     now: () => clock.now,
+    afterSeed: options.withDemoNetwork
+      ? async (db) => {
+        await importDemoNetwork(db, { now: () => clock.now,
+          limits: { maxBytes: config.uploadMaxBytes } });
+      }
+      : undefined,
   });
   const built = createKeelsonApp({
     config,
