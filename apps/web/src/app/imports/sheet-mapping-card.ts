@@ -1,0 +1,95 @@
+import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
+import { MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
+import { MatIcon } from '@angular/material/icon';
+import { MatInput } from '@angular/material/input';
+import type { InspectedSheet, SheetName, WorkbookInspection } from '@keelson/contracts';
+import { REQUIRED_SHEETS, SHEET_HELP, TEMPLATE_FIELDS } from '@keelson/workbook/fields';
+import type { SheetMappingDraft } from './mapping-draft';
+
+/** A change of one field's header on a sheet card. */
+export interface ColumnChoice {
+  field: string;
+  /** The file's header, or '' for "not mapped". */
+  header: string;
+}
+
+/** How many sample rows the preview shows (the inspection sends at most this many). */
+export const SAMPLE_ROW_LIMIT = 5;
+
+/**
+ * One template sheet on the mapping step: which sheet of the file holds it, its header row,
+ * and a header for every field (required ones marked, missing ones flagged), beside a preview
+ * of the chosen sheet's headers and first rows.
+ */
+@Component({
+  selector: 'kl-sheet-mapping-card',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [MatFormField, MatHint, MatIcon, MatInput, MatLabel],
+  templateUrl: './sheet-mapping-card.html',
+  styleUrl: './sheet-mapping-card.scss',
+})
+export class SheetMappingCard {
+  /** The template sheet this card maps. */
+  readonly sheet = input.required<SheetName>();
+  /** The choices so far for this sheet. */
+  readonly entry = input.required<SheetMappingDraft>();
+  /** What the file holds. */
+  readonly inspection = input.required<WorkbookInspection>();
+
+  /** The buyer chose another sheet of the file (null: none). */
+  readonly fileSheetChange = output<string | null>();
+  /** The buyer typed another header row (null: left blank). */
+  readonly headerRowChange = output<number | null>();
+  /** The buyer chose a header for a field. */
+  readonly columnChange = output<ColumnChoice>();
+
+  protected readonly isRequired = computed(() => REQUIRED_SHEETS.includes(this.sheet()));
+  protected readonly help = computed(() => SHEET_HELP[this.sheet()]);
+  protected readonly fields = computed(() => TEMPLATE_FIELDS[this.sheet()]);
+  protected readonly fileSheet = computed<InspectedSheet | null>(
+    () => this.inspection().sheets.find((sheet) => sheet.name === this.entry().sheetName) ?? null,
+  );
+  protected readonly headers = computed(() =>
+    (this.fileSheet()?.headers ?? []).filter((header) => header.trim() !== ''),
+  );
+  protected readonly sampleRows = computed(() =>
+    (this.fileSheet()?.sampleRows ?? []).slice(0, SAMPLE_ROW_LIMIT),
+  );
+  protected readonly missing = computed(() => {
+    const columns = this.entry().columns;
+    return new Set(
+      this.fields()
+        .filter((field) => field.required && !columns[field.field])
+        .map((field) => field.field),
+    );
+  });
+  protected readonly isSheetMissing = computed(
+    () => this.isRequired() && this.entry().sheetName === null,
+  );
+  protected readonly idPrefix = computed(() => `map-${this.sheet().toLowerCase()}`);
+
+  protected onFileSheet(event: Event): void {
+    const value = (event.target as HTMLSelectElement).value;
+    this.fileSheetChange.emit(value === '' ? null : value);
+  }
+
+  protected onHeaderRow(event: Event): void {
+    const text = (event.target as HTMLInputElement).value.trim();
+    const row = Number(text);
+    this.headerRowChange.emit(text !== '' && Number.isInteger(row) && row >= 1 ? row : null);
+  }
+
+  protected onColumn(field: string, event: Event): void {
+    this.columnChange.emit({ field, header: (event.target as HTMLSelectElement).value });
+  }
+
+  protected cellText(value: string | number | boolean | null): string {
+    if (value === null) {
+      return '';
+    }
+    if (typeof value === 'boolean') {
+      return value ? 'yes' : 'no';
+    }
+    return String(value);
+  }
+}
