@@ -27,8 +27,13 @@ export interface NetworkSupplierDto {
   row: number | null;
 }
 
-/** Sort fields of the suppliers table. */
-export const SUPPLIER_SORT_FIELDS = ['code', 'name', 'country', 'region', 'tier', 'recoveryWeeks'] as const;
+/** Sort fields of the suppliers table (every listed column but the plants). */
+export const SUPPLIER_SORT_FIELDS = [
+  'code', 'name', 'country', 'region', 'tier', 'recoveryWeeks', 'financialHealth',
+  'deliveryScore', 'hasContinuityPlan', 'sellsCount', 'buysCount',
+] as const;
+/** One of {@link SUPPLIER_SORT_FIELDS}. */
+export type SupplierSortField = (typeof SUPPLIER_SORT_FIELDS)[number];
 
 const pageFields = {
   limit: z.coerce.number().int().min(1).max(1000).default(50),
@@ -91,7 +96,11 @@ export interface NetworkProductDto {
 }
 
 /** Sort fields of the products table. */
-export const PRODUCT_SORT_FIELDS = ['code', 'name', 'plantCode', 'weeklyRevenue'] as const;
+export const PRODUCT_SORT_FIELDS = [
+  'code', 'name', 'plantCode', 'weeklyRevenue', 'componentCount',
+] as const;
+/** One of {@link PRODUCT_SORT_FIELDS}. */
+export type ProductSortField = (typeof PRODUCT_SORT_FIELDS)[number];
 
 /** GET /api/network-versions/:id/products query. */
 export const listProductsQuerySchema = z.object({
@@ -120,7 +129,11 @@ export interface NetworkItemDto {
 }
 
 /** Sort fields of the items table. */
-export const ITEM_SORT_FIELDS = ['code', 'holderCode', 'kind', 'qualifiedSources', 'weeksOfCover'] as const;
+export const ITEM_SORT_FIELDS = [
+  'code', 'holderCode', 'kind', 'qualifiedSources', 'weeksOfCover', 'holderKind', 'usedIn',
+] as const;
+/** One of {@link ITEM_SORT_FIELDS}. */
+export type ItemSortField = (typeof ITEM_SORT_FIELDS)[number];
 
 /** GET /api/network-versions/:id/items query. */
 export const listItemsQuerySchema = z.object({
@@ -174,3 +187,29 @@ export const updateCountrySchema = z.object({
 });
 /** PUT /api/countries/:code body. */
 export type UpdateCountryInput = z.infer<typeof updateCountrySchema>;
+
+/** GET /api/network-versions query: a page of versions, newest first. */
+export const listNetworkVersionsQuerySchema = z.object({
+  limit: z.coerce.number().int().min(1).max(200).default(20),
+  offset: z.coerce.number().int().min(0).max(10_000_000).default(0),
+});
+/** GET /api/network-versions query. */
+export type ListNetworkVersionsQuery = z.infer<typeof listNetworkVersionsQuerySchema>;
+
+/** GET /api/network-versions/:id/bom/:code query. */
+export const bomQuerySchema = z.object({
+  /** The plant whose bill of materials to open; a product's own plant when left out. */
+  plant: z.string().trim().min(1).max(40).optional(),
+});
+/** GET /api/network-versions/:id/bom/:code query. */
+export type BomQuery = z.infer<typeof bomQuerySchema>;
+
+/** An ISO 3166-1 alpha-2 code as a route parameter (upper-cased). */
+export const countryCodeSchema = z
+  .string()
+  .trim()
+  .regex(/^[A-Za-z]{2}$/, 'Expected a two-letter ISO 3166-1 country code.')
+  .transform((code) => code.toUpperCase());
+
+/** 403 error code when a plant manager names a plant outside their own. */
+export const PLANT_FORBIDDEN = 'plant_forbidden';
