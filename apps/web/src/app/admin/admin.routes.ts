@@ -16,4 +16,10 @@ export const adminRoutes: Routes = [
     canActivate: [navigationGuard('admin/mail')],
     loadComponent: () => import('./mail-page').then((m) => m.MailPage),
   },
+  {
+    path: 'countries',
+    title: 'Countries · Keelson',
+    canActivate: [navigationGuard('admin/countries')],
+    loadComponent: () => import('./countries-page').then((m) => m.CountriesPage),
+  },
 ];

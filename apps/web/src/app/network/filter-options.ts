@@ -1,0 +1,29 @@
+import { type Signal, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import type { CountryDto, PlantDto } from '@keelson/contracts';
+import { catchError, of } from 'rxjs';
+import { CountriesApi } from '../admin/countries-api';
+import { PlantsApi } from '../admin/plants-api';
+
+/**
+ * The plants for a table's plant filter. A failed read leaves the list empty (the filter then
+ * offers only "All plants") rather than breaking the table. Call it in an injection context.
+ */
+export function plantOptions(): Signal<PlantDto[]> {
+  return toSignal(
+    inject(PlantsApi)
+      .list()
+      .pipe(catchError(() => of([] as PlantDto[]))),
+    { initialValue: [] as PlantDto[] },
+  );
+}
+
+/** The countries for the country and region filters (empty when they cannot be read). */
+export function countryOptions(): Signal<CountryDto[]> {
+  return toSignal(
+    inject(CountriesApi)
+      .list()
+      .pipe(catchError(() => of([] as CountryDto[]))),
+    { initialValue: [] as CountryDto[] },
+  );
+}
