@@ -1,4 +1,3 @@
-import ExcelJS from 'exceljs';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ImportBatchDto, ImportCommitDto, Role } from '@keelson/contracts';
@@ -6,6 +5,7 @@ import { ACCOUNT_OF_ROLE, createTestApp, type TestApp } from '../testing/test-ap
 import {
   bearer,
   buildXlsx,
+  downloadWorkbook,
   networkRowCounts,
   smallNetworkSheets,
   upload,
@@ -197,16 +197,10 @@ describe('GET /api/imports', () => {
 
 describe('GET /api/imports/template.xlsx', () => {
   it('downloads the empty template with its Read me sheet', async () => {
-    const response = await api().get('/api/imports/template.xlsx').set(bearer(t))
-      .buffer(true).parse((res, done) => {
-        const chunks: Buffer[] = [];
-        res.on('data', (chunk: Buffer) => chunks.push(chunk));
-        res.on('end', () => done(null, Buffer.concat(chunks)));
-      });
+    const { response, workbook } = await downloadWorkbook(t, '/api/imports/template.xlsx',
+      'viewer@demo.test');
     expect(response.headers['content-disposition']).toMatch(
       /^attachment; filename="?keelson-template\.xlsx"?$/);
-    const workbook = new ExcelJS.Workbook();
-    await workbook.xlsx.load(response.body as Buffer);
     const names = workbook.worksheets.map((sheet) => sheet.name);
     expect(names).toEqual(expect.arrayContaining(['Plants', 'Products', 'BOM', 'Suppliers',
       'Sourcing', 'Stock']));
