@@ -53,6 +53,11 @@ export function formatRanking(result: AnalysisResult & { warnings?: unknown[] },
       `  revenue impact: ${money.format(s.revenueImpact)}`,
     );
   }
+  const method = result.methods.closeness;
+  if (method.method === 'sampled') {
+    out.push('', `Closeness estimated from ${method.pivots} pivots (largest relative standard error ` +
+      `${(100 * method.maxRelativeStandardError).toFixed(2)} %); --closeness exact computes it exactly.`);
+  }
   if (result.warnings?.length) out.push('', `${result.warnings.length} warning(s) in the workbook (see the JSON).`);
   return `${out.join('\n')}\n`;
 }

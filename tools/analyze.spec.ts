@@ -35,6 +35,7 @@ describe('npm run analyze', () => {
       expect(json.suppliers[0]).toHaveProperty(field);
     }
     expect(json.scenario).toBeUndefined();
+    expect(json.methods.closeness).toEqual({ method: 'exact' });
     // The demo hides two tier-2 single points of failure under dual-sourced items.
     const shared = json.suppliers.filter((s: { code: string }) => s.code.startsWith('S-2-SHARED'));
     expect(shared.map((s: { tier: number; singlePointOfFailure: boolean }) => [s.tier, s.singlePointOfFailure]))
@@ -49,6 +50,23 @@ describe('npm run analyze', () => {
     const czech = json.suppliers.filter((s: { country: string }) => s.country === 'CZ').map((s: { code: string }) => s.code);
     expect(json.scenario.failed).toEqual([...new Set(['S-1-001', ...czech])].sort());
     expect(json.scenario.revenueImpact).toBeGreaterThan(0);
+  });
+
+  it('estimates closeness from pivots with --closeness sampled, and says so', () => {
+    const exactOut = join(workdir, 'exact.json');
+    const sampledOut = join(workdir, 'sampled.json');
+    expect(analyze('data/demo/keelson-demo.xlsx', '--json', exactOut).status).toBe(0);
+    const run = analyze('data/demo/keelson-demo.xlsx', '--json', sampledOut, '--closeness', 'sampled');
+    expect(run.status).toBe(0);
+    expect(run.stdout).toMatch(/Closeness estimated from \d+ pivots/);
+    const exact = JSON.parse(readFileSync(exactOut, 'utf8'));
+    const sampled = JSON.parse(readFileSync(sampledOut, 'utf8'));
+    expect(sampled.methods.closeness.method).toBe('sampled');
+    // The demo network is small: the pivots cover every node, so the estimate is exact.
+    expect(sampled.methods.closeness.maxRelativeStandardError).toBe(0);
+    sampled.suppliers.forEach((s: { closeness: number }, i: number) =>
+      expect(s.closeness).toBeCloseTo(exact.suppliers[i].closeness, 12));
+    expect(analyze('data/demo/keelson-demo.xlsx', '--closeness', 'fast').status).toBe(2);
   });
 
   it('exits 2 naming a --fail code that is not a supplier', () => {

@@ -1,6 +1,6 @@
 /**
  * The command-line analyser: `npm run analyze -- <workbook> [--json <out.json>] [--fail A,B]
- * [--fail-country XX] [--top N]`. Reads a template workbook (xlsx, csv or zip of CSVs, or a folder
+ * [--fail-country XX] [--top N] [--closeness auto|exact|sampled]`. Reads a template workbook (xlsx, csv or zip of CSVs, or a folder
  * of CSVs), analyses it with the same engine the server runs, prints the ranking and writes the
  * JSON of the analysis contract. Exit codes: 0 done, 1 the workbook has errors, 2 bad arguments.
  */
@@ -13,7 +13,8 @@ import { formatRanking, progressBar } from './analyze-output';
 
 const USAGE =
   'Usage: npm run analyze -- <workbook.xlsx|.csv|.zip|folder> [--json out.json] ' +
-  '[--fail S1,S2] [--fail-country XX] [--top N]';
+  '[--fail S1,S2] [--fail-country XX] [--top N] [--closeness auto|exact|sampled]';
+const CLOSENESS_MODES = ['auto', 'exact', 'sampled'] as const;
 
 async function main(argv: string[]): Promise<number> {
   let parsed;
@@ -26,6 +27,7 @@ async function main(argv: string[]): Promise<number> {
         fail: { type: 'string' },
         'fail-country': { type: 'string' },
         top: { type: 'string', default: '20' },
+        closeness: { type: 'string', default: 'auto' },
         help: { type: 'boolean', short: 'h' },
       },
     });
@@ -45,6 +47,11 @@ async function main(argv: string[]): Promise<number> {
   const top = Number(values.top);
   if (!Number.isInteger(top) || top < 0) {
     process.stderr.write(`--top must be a whole number, not "${values.top}".\n`);
+    return 2;
+  }
+  const closeness = CLOSENESS_MODES.find((mode) => mode === values.closeness);
+  if (closeness === undefined) {
+    process.stderr.write(`--closeness must be auto, exact or sampled, not "${values.closeness}".\n`);
     return 2;
   }
   const path = positionals[0]!;
@@ -74,6 +81,7 @@ async function main(argv: string[]): Promise<number> {
     result = analyse(read.model, {
       fail,
       failCountry: values['fail-country'],
+      closeness,
       onProgress: isTerminal ? (fraction, stage) => process.stderr.write(`\r${progressBar(fraction, stage)}`) : undefined,
     });
   } catch (error) {

@@ -10,6 +10,7 @@ import {
   betweenness,
   buildSupplyGraph,
   impactOf,
+  type ClosenessMethod,
   type SupplyGraph,
 } from '@keelson/supply-graph';
 import { generateTieredNetwork } from '@keelson/supply-graph/testing';
@@ -27,6 +28,8 @@ export interface SizeResult {
   stageSeconds: Record<string, number>;
   /** Peak RSS of the child process right after the analysis, in MB. */
   peakRssMb: number;
+  /** How closeness was computed at this size (exact, or sampled with its precision). */
+  closenessMethod: ClosenessMethod;
   oneAtATime: {
     /** Suppliers timed one at a time with impactOf (plain propagation), evenly spread. */
     sample: number;
@@ -80,6 +83,7 @@ export function measureSize(suppliers: number, sample: number): SizeResult {
     edges: result.totals.edges,
     generateSeconds,
     analysisSeconds,
+    closenessMethod: result.methods.closeness,
     analysisCpuSeconds,
     stageSeconds,
     peakRssMb,

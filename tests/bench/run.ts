@@ -68,6 +68,7 @@ function formatTable(rows: SizeResult[]): string {
   const header = [
     'suppliers', 'nodes', 'edges', 'analysis s', 'cpu s', 'peak RSS MB', 'single rem. s',
     'one-at-a-time s (est.)', 'speed-up', 'betweenness s', 'graphology s', 'vs graphology',
+    'closeness s', 'closeness',
   ];
   const cells = rows.map((r) => [
     String(r.suppliers),
@@ -82,6 +83,11 @@ function formatTable(rows: SizeResult[]): string {
     r.stageSeconds['betweenness']!.toFixed(2),
     r.graphology.seconds === null ? 'not run' : r.graphology.seconds.toFixed(1),
     r.graphology.speedUpOfSubset === null ? '-' : `${r.graphology.speedUpOfSubset.toFixed(0)}x`,
+    r.stageSeconds['closeness']!.toFixed(2),
+    r.closenessMethod.method === 'exact'
+      ? 'exact'
+      : `${r.closenessMethod.pivots} pivots, RSE <= ` +
+        `${(100 * r.closenessMethod.maxRelativeStandardError).toFixed(2)} %`,
   ]);
   const widths = header.map((h, i) => Math.max(h.length, ...cells.map((c) => c[i]!.length)));
   const line = (row: string[]) => row.map((c, i) => c.padStart(widths[i]!)).join('  ');

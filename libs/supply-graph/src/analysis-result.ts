@@ -78,6 +78,18 @@ export type AnalysisStage =
   | 'nexus index'
   | 'scenario';
 
+/** How closeness was computed: exactly, or estimated from pivots with its precision. */
+export type ClosenessMethod =
+  | { method: 'exact' }
+  | {
+      method: 'sampled';
+      pivots: number;
+      seed: number;
+      /** Largest and median relative standard error of the suppliers' distance sums. */
+      maxRelativeStandardError: number;
+      medianRelativeStandardError: number;
+    };
+
 /** The analysis of one network. */
 export interface AnalysisResult {
   /** Every supplier, sorted by code (code-point order). */
@@ -86,4 +98,6 @@ export interface AnalysisResult {
   scenario?: ScenarioResult;
   totals: AnalysisTotals;
   timings: AnalysisTimings;
+  /** Methods chosen for this network (only closeness has a choice). */
+  methods: { closeness: ClosenessMethod };
 }

@@ -5,12 +5,13 @@
  * Pure: no Node built-ins, no frameworks, so it runs in the API, a worker, the command line and a
  * browser alike. The contract is shared/spec/supply-model.md; the methods are in docs/methods.md.
  */
-export { analyse, type AnalyseOptions } from './analyse';
+export { analyse, CLOSENESS_EXACT_WORK_LIMIT, type AnalyseOptions } from './analyse';
 export type {
   AnalysisResult,
   AnalysisStage,
   AnalysisTimings,
   AnalysisTotals,
+  ClosenessMethod,
   ScenarioResult,
   SupplierResult,
 } from './analysis-result';
@@ -51,6 +52,12 @@ export {
   closenessCentrality,
   type ClosenessOptions,
 } from './measures/closeness';
+export {
+  SAMPLED_CLOSENESS_DEFAULTS,
+  sampledCloseness,
+  type SampledCloseness,
+  type SampledClosenessOptions,
+} from './measures/closeness-sampled';
 export { DEGREE_DEFAULTS, degreeCentrality, type DegreeOptions } from './measures/degree';
 export {
   EIGENVECTOR_DEFAULTS,

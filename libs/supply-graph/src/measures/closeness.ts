@@ -23,6 +23,7 @@
  */
 import { reverseCsr, type CsrGraph } from '../csr-graph';
 import { throwIfCancelled, type ProgressOptions } from '../errors';
+import { ContractedSearch, contractGraph } from './contracted-search';
 
 /** Options of {@link closenessCentrality}. */
 export interface ClosenessOptions extends ProgressOptions {
@@ -46,13 +47,13 @@ export function closenessCentrality(graph: CsrGraph, options: ClosenessOptions =
   const batch = 32 * words;
   const requested = inSearchOrder(searched, options.nodes, batch);
   const scores = new Float64Array(n).fill(options.nodes ? Number.NaN : 0);
-  const search = new MultiSourceSearch(searched, words);
+  const search = searchFor(searched, requested, words);
   const sources = new Int32Array(batch);
   for (let start = 0; start < requested.length; start += batch) {
     throwIfCancelled(options.signal, 'closeness');
     options.onProgress?.(start / requested.length);
     const count = Math.min(batch, requested.length - start);
-    for (let i = 0; i < count; i++) sources[i] = requested[start + i]!;
+    for (let i = 0; i < count; i++) sources[i] = search.indexOf(requested[start + i]!);
     search.run(sources, count);
     for (let i = 0; i < count; i++) {
       const reached = search.reached[i]!;
@@ -62,11 +63,35 @@ export function closenessCentrality(graph: CsrGraph, options: ClosenessOptions =
         closeness = reached / total;
         if (wassermanFaust) closeness *= reached / (n - 1);
       }
-      scores[sources[i]!] = closeness;
+      scores[requested[start + i]!] = closeness;
     }
   }
   options.onProgress?.(1);
   return scores;
+}
+
+/** A multi-source search and how it numbers the nodes it starts from. */
+interface Search {
+  readonly reached: Float64Array;
+  readonly distanceSum: Float64Array;
+  indexOf(node: number): number;
+  run(sources: Int32Array, count: number): void;
+}
+
+/**
+ * On an undirected graph, the search with low-degree non-source nodes contracted (much smaller
+ * working set, same sums); on a directed one, the plain multi-source search.
+ */
+function searchFor(graph: CsrGraph, requested: Int32Array, words: number): Search {
+  if (graph.directed) {
+    const plain = new MultiSourceSearch(graph, words);
+    return Object.assign(plain, { indexOf: (node: number) => node });
+  }
+  const isSource = new Uint8Array(graph.n);
+  for (const v of requested) isSource[v] = 1;
+  const contracted = contractGraph(graph, isSource);
+  const search = new ContractedSearch(contracted, words, graph.n);
+  return Object.assign(search, { indexOf: (node: number) => contracted.keptOf[node]! });
 }
 
 /**
@@ -127,18 +152,18 @@ class MultiSourceSearch {
   readonly reached: Float64Array;
   /** Sum of hop distances per source. */
   readonly distanceSum: Float64Array;
-  private readonly seen: Uint32Array;
-  private readonly visit: Uint32Array;
-  private readonly visitNext: Uint32Array;
+  private readonly seen: Int32Array;
+  private readonly visit: Int32Array;
+  private readonly visitNext: Int32Array;
   private readonly isQueued: Uint8Array;
   /** 1 when a node has been reached from every source of the pass: nothing more to add. */
   private readonly isComplete: Uint8Array;
   private readonly liveWords: Int32Array;
   /** Per word, the bits of the sources in this pass. */
-  private readonly full: Uint32Array;
+  private readonly full: Int32Array;
   private frontier: Int32Array;
   private next: Int32Array;
-  private readonly counter: Uint32Array;
+  private readonly counter: Int32Array;
   private readonly slices: number;
 
   constructor(
@@ -148,18 +173,18 @@ class MultiSourceSearch {
     const { n } = graph;
     this.reached = new Float64Array(32 * words);
     this.distanceSum = new Float64Array(32 * words);
-    this.seen = new Uint32Array(n * words);
-    this.visit = new Uint32Array(n * words);
-    this.visitNext = new Uint32Array(n * words);
+    this.seen = new Int32Array(n * words);
+    this.visit = new Int32Array(n * words);
+    this.visitNext = new Int32Array(n * words);
     this.isQueued = new Uint8Array(n);
     this.isComplete = new Uint8Array(n);
     this.liveWords = new Int32Array(words);
-    this.full = new Uint32Array(words);
+    this.full = new Int32Array(words);
     this.frontier = new Int32Array(n);
     this.next = new Int32Array(n);
     // Bit-sliced counters per word: slice k holds bit k of 32 per-source counts (n fits).
     this.slices = Math.max(1, 32 - Math.clz32(n));
-    this.counter = new Uint32Array(this.slices * words);
+    this.counter = new Int32Array(this.slices * words);
   }
 
   run(sources: Int32Array, count: number): void {
@@ -170,7 +195,7 @@ class MultiSourceSearch {
     isComplete.fill(0);
     for (let j = 0; j < words; j++) {
       const bits = Math.min(32, Math.max(0, count - 32 * j));
-      full[j] = bits === 32 ? 0xffffffff : (1 << bits) - 1;
+      full[j] = bits === 32 ? -1 : (1 << bits) - 1;
     }
     this.reached.fill(0);
     this.distanceSum.fill(0);
