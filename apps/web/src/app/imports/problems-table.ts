@@ -9,6 +9,7 @@ import { MatSort, MatSortHeader, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import {
   IMPORT_PROBLEM_SORT_FIELDS,
+  type ImportBatchDto,
   type ImportProblemDto,
   SHEET_NAMES,
 } from '@keelson/contracts';
@@ -58,10 +59,8 @@ export class ProblemsTable {
   private readonly importsApi = inject(ImportsApi);
   private readonly searchInput = new Subject<string>();
 
-  /** The batch whose problems are listed. */
-  readonly batchId = input.required<number>();
-  /** Errors plus warnings of the batch, to tell "none at all" from "none match". */
-  readonly problemCount = input(0);
+  /** The batch whose problems are listed; each new check of it (a new object) reloads them. */
+  readonly batch = input.required<ImportBatchDto>();
 
   protected readonly columns = ['kind', 'sheet', 'row', 'column', 'value', 'message'] as const;
   protected readonly sheets = SHEET_NAMES;
@@ -90,11 +89,11 @@ export class ProblemsTable {
       )
       .subscribe((q) => this.query.update((query) => ({ ...query, q, offset: 0 })));
 
-    combineLatest([toObservable(this.batchId), toObservable(this.query)])
+    combineLatest([toObservable(this.batch), toObservable(this.query)])
       .pipe(
-        switchMap(([batchId, query]) => {
+        switchMap(([batch, query]) => {
           this.isLoading.set(true);
-          return this.importsApi.problems(batchId, query).pipe(
+          return this.importsApi.problems(batch.id, query).pipe(
             catchError((error: unknown) => of<ProblemResult>({ error: apiErrorMessage(error) })),
           );
         }),
