@@ -93,7 +93,7 @@ export class NetworkCatalogRepository {
     if (filter.plants !== null) {
       conditions.push(or(
         and(eq(i.holderKind, 'plant'), inPlants(i.holderCode, filter.plants)),
-        and(eq(i.holderKind, 'supplier'), servesAnyOf(i.versionId, i.holderCode, filter.plants)),
+        and(eq(i.holderKind, 'supplier'), servesAnyOf(versionId, i.holderCode, filter.plants)),
       )!);
     }
     const where = and(...conditions);

@@ -24,19 +24,19 @@ export function valueList(values: readonly string[]): SQL {
 }
 
 /**
- * True when the supplier `supplierCode` of version `versionId` serves one of `plants`, directly
- * or through other suppliers (`network_supplier_plants`, derived at commit). An empty list is
- * false. Uses the table's primary key (version, supplier, plant).
+ * `column in (<suppliers of the version serving one of plants>)`, directly or through other
+ * suppliers (`network_supplier_plants`, derived at commit); false for an empty list. The
+ * subquery does not depend on the outer row, so SQLite builds the set once per statement
+ * (through the table's plant index) instead of probing it row by row.
  */
 export function servesAnyOf(
-  versionId: SQLWrapper,
+  versionId: number,
   supplierCode: SQLWrapper,
   plants: readonly string[],
 ): SQL {
   if (plants.length === 0) return sql`0`;
-  return sql`exists (select 1 from network_supplier_plants sp
-    where sp.version_id = ${versionId} and sp.supplier_code = ${supplierCode}
-    and sp.plant_code in ${valueList(plants)})`;
+  return sql`${supplierCode} in (select sp.supplier_code from network_supplier_plants sp
+    where sp.version_id = ${versionId} and sp.plant_code in ${valueList(plants)})`;
 }
 
 /** Sort key that puts nulls last whichever the direction. */

@@ -41,9 +41,9 @@ const r = networkSourcing;
  * Sourcing rows of the outer supplier `s` as seller, counted in the plant scope: rows bought by
  * one of the plants, or by a supplier that serves one of them.
  */
-function sellsCountSql(scope: PlantScope): SQL {
+function sellsCountSql(versionId: number, scope: PlantScope): SQL {
   return sql`(select count(*) from network_sourcing sr where sr.version_id = ${s.versionId}
-    and sr.supplier_code = ${s.code}${scopedBuyer(sql`sr.version_id`, sql`sr.buyer_code`, scope)})`;
+    and sr.supplier_code = ${s.code}${scopedBuyer(versionId, sql`sr.buyer_code`, scope)})`;
 }
 
 function buysCountSql(): SQL {
@@ -52,7 +52,7 @@ function buysCountSql(): SQL {
 }
 
 /** ` and <buyer is in scope>` or nothing for an unscoped user. */
-function scopedBuyer(versionId: SQL, buyerCode: SQL, scope: PlantScope): SQL {
+function scopedBuyer(versionId: number, buyerCode: SQL, scope: PlantScope): SQL {
   if (scope === null) return sql``;
   if (scope.length === 0) return sql` and 0`;
   return sql` and (${buyerCode} in ${valueList(scope)}
@@ -60,7 +60,7 @@ function scopedBuyer(versionId: SQL, buyerCode: SQL, scope: PlantScope): SQL {
 }
 
 /** How to order by each sort field: its key, and whether nulls go last first. */
-type SortKey = (scope: PlantScope) => { key: SQL; isNullable?: true };
+type SortKey = (versionId: number, scope: PlantScope) => { key: SQL; isNullable?: true };
 const SORT_KEYS: Record<SupplierSortField, SortKey> = {
   code: () => ({ key: sql`${s.code}` }),
   name: () => ({ key: sql`${s.name} collate nocase` }),
@@ -71,7 +71,7 @@ const SORT_KEYS: Record<SupplierSortField, SortKey> = {
   financialHealth: () => ({ key: sql`${s.financialHealth}`, isNullable: true }),
   deliveryScore: () => ({ key: sql`${s.deliveryScore}`, isNullable: true }),
   hasContinuityPlan: () => ({ key: sql`${s.hasContinuityPlan}`, isNullable: true }),
-  sellsCount: (scope) => ({ key: sellsCountSql(scope) }),
+  sellsCount: (versionId, scope) => ({ key: sellsCountSql(versionId, scope) }),
   buysCount: () => ({ key: buysCountSql() }),
 };
 
@@ -89,10 +89,10 @@ export class NetworkSuppliersRepository {
     if (filter.tier !== undefined) conditions.push(eq(s.tier, filter.tier));
     if (filter.country) conditions.push(eq(s.country, filter.country));
     if (filter.region) conditions.push(sql`${s.region} = ${filter.region} collate nocase`);
-    if (filter.plants !== null) conditions.push(servesAnyOf(s.versionId, s.code, filter.plants));
+    if (filter.plants !== null) conditions.push(servesAnyOf(versionId, s.code, filter.plants));
     const where = and(...conditions);
     const direction = filter.order === 'desc' ? desc : asc;
-    const { key, isNullable } = SORT_KEYS[filter.sort](scope);
+    const { key, isNullable } = SORT_KEYS[filter.sort](versionId, scope);
     // Nulls (not given in the file) sort last in both directions; the code keeps pages stable.
     const keys = isNullable ? [nullsLast(key), direction(key)] : [direction(key)];
     const rows = this.db
@@ -149,7 +149,7 @@ export class NetworkSuppliersRepository {
       .select({ code: r.supplierCode, value: count() })
       .from(r)
       .where(sql`${r.versionId} = ${versionId} and ${inArray(r.supplierCode, [...codes])}${
-        scopedBuyer(sql`${r.versionId}`, sql`${r.buyerCode}`, scope)}`)
+        scopedBuyer(versionId, sql`${r.buyerCode}`, scope)}`)
       .groupBy(r.supplierCode)
       .all();
     const buys = this.db
@@ -166,7 +166,7 @@ export class NetworkSuppliersRepository {
   /** Rows in which the supplier sells, within the scope, in spreadsheet order. */
   sells(versionId: number, code: string, scope: PlantScope): SourcingLinkRecord[] {
     return this.links(sql`${r.versionId} = ${versionId} and ${r.supplierCode} = ${code}${
-      scopedBuyer(sql`${r.versionId}`, sql`${r.buyerCode}`, scope)}`);
+      scopedBuyer(versionId, sql`${r.buyerCode}`, scope)}`);
   }
 
   /** Rows in which the supplier buys, in spreadsheet order. */
