@@ -15,7 +15,7 @@ import {
 import { MatButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
 import { MatProgressBar } from '@angular/material/progress-bar';
-import { RouterLink } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import type { ImportBatchDto, ImportCommitDto } from '@keelson/contracts';
 import type { Subscription } from 'rxjs';
 import { apiErrorMessage } from '../shared/api-error-message';
@@ -63,6 +63,7 @@ export type ImportStepKey = (typeof IMPORT_STEPS)[number]['key'];
 export class ImportPage {
   private readonly importsApi = inject(ImportsApi);
   private readonly injector = inject(Injector);
+  private readonly router = inject(Router);
   private readonly stepHeading = viewChild<ElementRef<HTMLElement>>('stepHeading');
   private loading: Subscription | null = null;
 
@@ -141,6 +142,11 @@ export class ImportPage {
   }
 
   protected startOver(): void {
+    if (this.batchId()) {
+      // Opened from the history: a new import lives at /imports, not at this batch's address.
+      void this.router.navigateByUrl('/imports');
+      return;
+    }
     this.batch.set(null);
     this.goTo('upload');
   }

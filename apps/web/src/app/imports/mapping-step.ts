@@ -69,6 +69,7 @@ export class MappingStep {
   protected readonly errorMessage = signal<string | null>(null);
   protected readonly savedMessage = signal<string | null>(null);
   protected readonly mappingName = signal('');
+  protected readonly chosenSaved = signal<ImportMappingDto | null>(null);
   protected readonly missingCount = computed(() => {
     const draft = this.draft();
     if (!draft) {
@@ -93,8 +94,27 @@ export class MappingStep {
   }
 
   protected onSavedMapping(event: Event): void {
-    const value = (event.target as HTMLSelectElement).value;
-    this.load(this.batch(), value === '' ? undefined : Number(value));
+    const id = Number((event.target as HTMLSelectElement).value);
+    const saved = this.savedMappings().find((mapping) => mapping.id === id) ?? null;
+    this.chosenSaved.set(saved);
+    this.load(this.batch(), saved?.id);
+  }
+
+  protected removeSaved(): void {
+    const saved = this.chosenSaved();
+    if (!saved) {
+      return;
+    }
+    this.errorMessage.set(null);
+    this.mappingsApi.remove(saved.id).subscribe({
+      next: () => {
+        this.savedMappings.update((list) => list.filter((mapping) => mapping.id !== saved.id));
+        this.chosenSaved.set(null);
+        this.savedMessage.set(`Deleted the saved mapping "${saved.name}".`);
+        this.load(this.batch(), undefined);
+      },
+      error: (error: unknown) => this.errorMessage.set(apiErrorMessage(error)),
+    });
   }
 
   protected onFileSheet(sheet: SheetName, sheetName: string | null): void {

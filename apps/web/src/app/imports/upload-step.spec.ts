@@ -138,6 +138,25 @@ describe('UploadStep', () => {
     expect(uploaded).toEqual([]);
   });
 
+  it('names the limit the server sends with its 413', async () => {
+    pick(workbook('big.xlsx', 12 * 1024 * 1024));
+    await settle();
+    backend.expectOne('/api/imports').flush(
+      {
+        error: {
+          code: 'file_too_large',
+          message: 'The file is larger than the upload limit of 10 MB.',
+          details: { limitBytes: 10 * 1024 * 1024 },
+        },
+      },
+      { status: 413, statusText: 'Payload Too Large' },
+    );
+    await settle();
+    expect(root.querySelector('[role="alert"]')?.textContent).toContain(
+      'big.xlsx (12 MB) is larger than the server accepts (10 MB).',
+    );
+  });
+
   it('says the upload did not reach the server on a network failure', async () => {
     pick(workbook());
     await settle();

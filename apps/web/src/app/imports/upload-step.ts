@@ -14,9 +14,9 @@ import { HttpErrorResponse } from '@angular/common/http';
 import { MatButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
 import { MatProgressBar } from '@angular/material/progress-bar';
-import type { ImportBatchDto } from '@keelson/contracts';
+import { FILE_TOO_LARGE, type ImportBatchDto } from '@keelson/contracts';
 import type { Subscription } from 'rxjs';
-import { apiErrorCode, apiErrorMessage } from '../shared/api-error-message';
+import { apiErrorCode, apiErrorMessage, isApiErrorBody } from '../shared/api-error-message';
 import {
   ACCEPTED_EXTENSIONS,
   DEFAULT_UPLOAD_LIMIT_BYTES,
@@ -29,16 +29,33 @@ import { ImportsApi } from './imports-api';
 export const UPLOAD_UNREACHABLE_MESSAGE =
   'The upload did not reach the server. Check your connection and try again.';
 
-/** The message for a failed upload of `file`, in the buyer's terms. */
+/** The limit a 413 answer names in `details.limitBytes`, if it names one. */
+function answeredLimit(error: HttpErrorResponse): number | null {
+  if (!isApiErrorBody(error.error)) {
+    return null;
+  }
+  const details = error.error.error.details as { limitBytes?: unknown } | undefined;
+  return typeof details?.limitBytes === 'number' ? details.limitBytes : null;
+}
+
+/**
+ * The message for a failed upload of `file`, in the buyer's terms. A 413 names the server's
+ * limit when the answer carries it, otherwise the limit this screen states.
+ */
 export function uploadErrorMessage(error: unknown, file: File, limitBytes: number): string {
   if (
     error instanceof HttpErrorResponse &&
-    (error.status === 413 || apiErrorCode(error) === 'file_too_large')
+    (error.status === 413 || apiErrorCode(error) === FILE_TOO_LARGE)
   ) {
+    const limit = answeredLimit(error);
+    const limitText =
+      limit === null
+        ? `${formatFileSize(limitBytes)} unless your administrator set another limit`
+        : formatFileSize(limit);
     return (
       `${file.name} (${formatFileSize(file.size)}) is larger than the server accepts ` +
-      `(${formatFileSize(limitBytes)} unless your administrator set another limit). ` +
-      'Remove sheets or rows Keelson does not need, or send a zip of CSV files, and try again.'
+      `(${limitText}). Remove sheets or rows Keelson does not need, or send a zip of ` +
+      'CSV files, and try again.'
     );
   }
   if (error instanceof HttpErrorResponse && error.status === 0) {
