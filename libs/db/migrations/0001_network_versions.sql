@@ -119,7 +119,7 @@ CREATE TABLE `network_sourcing` (
 	FOREIGN KEY (`version_id`) REFERENCES `network_versions`(`id`) ON UPDATE no action ON DELETE cascade
 );
 --> statement-breakpoint
-CREATE INDEX `network_sourcing_supplier_index` ON `network_sourcing` (`version_id`,`supplier_code`);--> statement-breakpoint
+CREATE INDEX `network_sourcing_supplier_index` ON `network_sourcing` (`version_id`,`supplier_code`,`buyer_code`);--> statement-breakpoint
 CREATE INDEX `network_sourcing_buyer_index` ON `network_sourcing` (`version_id`,`buyer_code`,`item_code`);--> statement-breakpoint
 CREATE TABLE `network_stock` (
 	`id` integer PRIMARY KEY AUTOINCREMENT NOT NULL,

@@ -360,7 +360,11 @@ export const networkSourcing = sqliteTable(
     attributes: attributesColumn(),
   },
   (table) => [
-    index('network_sourcing_supplier_index').on(table.versionId, table.supplierCode),
+    index('network_sourcing_supplier_index').on(
+      table.versionId,
+      table.supplierCode,
+      table.buyerCode,
+    ),
     index('network_sourcing_buyer_index').on(table.versionId, table.buyerCode, table.itemCode),
   ],
 );
