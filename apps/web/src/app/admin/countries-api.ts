@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { CountryDto, UpdateCountryInput } from '@keelson/contracts';
-import { type Observable, map } from 'rxjs';
+import type { Observable } from 'rxjs';
 
 /** Data access for the country hazard table (everyone reads it; admins change it). */
 @Injectable({ providedIn: 'root' })
@@ -15,9 +15,6 @@ export class CountriesApi {
 
   /** PUT /api/countries/:code: sets the hazard (and optionally name and region); admin only. */
   update(code: string, input: UpdateCountryInput): Observable<CountryDto> {
-    const url = `/api/countries/${encodeURIComponent(code)}`;
-    return this.http
-      .put<CountryDto | { country: CountryDto }>(url, input)
-      .pipe(map((body) => ('country' in body ? body.country : body)));
+    return this.http.put<CountryDto>(`/api/countries/${encodeURIComponent(code)}`, input);
   }
 }

@@ -44,7 +44,7 @@ export function country(code: string, name: string, region: string, hazard: numb
 export function version(id: number, overrides: Partial<NetworkVersionDto> = {}): NetworkVersionDto {
   return {
     id,
-    label: `Version ${id}`,
+    label: `Import ${id + 10}: tarnwell-network-${id}.xlsx`,
     createdAt: '2026-11-30T10:15:00.000Z',
     createdBy: { id: 2, name: 'Bruno Keller' },
     importBatchId: id + 10,

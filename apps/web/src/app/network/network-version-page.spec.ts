@@ -6,6 +6,8 @@ import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { Session } from '../auth/session';
+import { userWithRole } from '../testing/user-fixtures';
 import { version } from './network-fixtures';
 import { NetworkVersionPage } from './network-version-page';
 
@@ -49,6 +51,7 @@ describe('NetworkVersionPage', () => {
       ],
     });
     backend = TestBed.inject(HttpTestingController);
+    TestBed.inject(Session).signIn(userWithRole('buyer'));
     harness = await RouterTestingHarness.create('/network/3/items');
     root = harness.routeNativeElement!;
     await settle();
@@ -100,6 +103,15 @@ describe('NetworkVersionPage', () => {
     )!;
     expect(link.getAttribute('href')).toBe('/api/network-versions/3/export.xlsx');
     expect(link.hasAttribute('download')).toBe(true);
+  });
+
+  it('offers no export to a plant manager, whom the API refuses the whole network', async () => {
+    const exportLink = (): Element | undefined =>
+      [...root.querySelectorAll('a')].find((anchor) => anchor.textContent?.includes('Export'));
+    expect(exportLink()).toBeDefined();
+    TestBed.inject(Session).signIn(userWithRole('plant_manager'));
+    await settle();
+    expect(exportLink()).toBeUndefined();
   });
 
   it('opens another version on the same tab when one is picked', async () => {

@@ -17,6 +17,7 @@ import {
 } from '@angular/router';
 import type { NetworkVersionDto } from '@keelson/contracts';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
+import { Session } from '../auth/session';
 import { apiErrorMessage } from '../shared/api-error-message';
 import { NetworkVersionsApi } from './network-versions-api';
 import { changeLines, versionLabel } from './version-label';
@@ -64,6 +65,7 @@ export class NetworkVersionPage {
   private readonly versionsApi = inject(NetworkVersionsApi);
   private readonly router = inject(Router);
   private readonly route = inject(ActivatedRoute);
+  private readonly session = inject(Session);
 
   /** The `:versionId` route parameter. */
   readonly versionId = input.required<string>();
@@ -126,6 +128,10 @@ export class NetworkVersionPage {
     ];
   });
   protected readonly exportUrl = computed(() => this.versionsApi.exportUrl(this.id()));
+  // The export holds every plant's rows, so the API refuses it to plant managers.
+  protected readonly canExport = computed(
+    () => this.session.role() !== null && this.session.role() !== 'plant_manager',
+  );
 
   /** Opens another version on the same tab (a product's BOM falls back to the products tab). */
   protected pick(id: number): void {

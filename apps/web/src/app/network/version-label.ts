@@ -1,10 +1,13 @@
 import { formatDate } from '@angular/common';
 import type { NetworkChangesDto, NetworkVersionDto } from '@keelson/contracts';
 
-/** How a version is named in the picker: "Version 3 · Import 3: file.xlsx · 2 Dec 2026". */
+/**
+ * How a version is named in the picker: "Version 3 · Import 3: file.xlsx · 2 Dec 2026, 10:15",
+ * the middle part being the label the import gave the version.
+ */
 export function versionLabel(version: NetworkVersionDto, locale = 'en-GB'): string {
   const date = formatDate(version.createdAt, 'd MMM y, HH:mm', locale);
-  return `Version ${version.id} · Import ${version.importBatchId}: ${version.fileName} · ${date}`;
+  return `Version ${version.id} · ${version.label} · ${date}`;
 }
 
 /** One cell of "what changed": how many, and the first few codes where the API names them. */
