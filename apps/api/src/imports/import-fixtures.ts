@@ -144,7 +144,12 @@ export interface UploadOptions {
 }
 
 /** POSTs a file to /api/imports as multipart. */
-export function upload(t: TestApp, data: Uint8Array, fileName: string, options: UploadOptions = {}) {
+export function upload(
+  t: TestApp,
+  data: Uint8Array,
+  fileName: string,
+  options: UploadOptions = {},
+) {
   const path = `/api/imports${options.query ? `?${options.query}` : ''}`;
   let call = request(t.app).post(path);
   if (options.cookie) {

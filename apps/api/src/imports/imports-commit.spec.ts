@@ -36,7 +36,10 @@ function rowsOfVersion(table: string, versionId: number): number {
 }
 
 /** The small network with a few edits, and the changes they make (worked out by hand). */
-function editedNetwork(): { sheets: Record<string, SheetRows>; changes: Partial<NetworkChangesDto> } {
+function editedNetwork(): {
+  sheets: Record<string, SheetRows>;
+  changes: Partial<NetworkChangesDto>;
+} {
   const sheets = smallNetworkSheets();
   sheets.Suppliers![2]![4] = 10; // S2 gets recovery_weeks 10 (was empty, so 8)
   sheets.Suppliers!.splice(3, 1); // S3 removed ...

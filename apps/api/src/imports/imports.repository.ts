@@ -44,7 +44,9 @@ export class ImportsRepository {
       .from(importFiles)
       .where(eq(importFiles.batchId, batchId))
       .get();
-    return row ? new Uint8Array(row.data.buffer, row.data.byteOffset, row.data.byteLength) : undefined;
+    return row
+      ? new Uint8Array(row.data.buffer, row.data.byteOffset, row.data.byteLength)
+      : undefined;
   }
 
   /** Updates a batch and returns the stored row. */
