@@ -4,7 +4,6 @@ import { MatIcon } from '@angular/material/icon';
 import { type ImportBatchDto, SHEET_NAMES } from '@keelson/contracts';
 import { REQUIRED_SHEETS } from '@keelson/workbook/fields';
 import { IMPORT_STATUS_HINTS } from './import-status';
-import { ImportStatusChip } from './import-status-chip';
 import { ImportsApi } from './imports-api';
 import { ProblemsTable } from './problems-table';
 
@@ -23,7 +22,7 @@ interface SheetCountLine {
 @Component({
   selector: 'kl-check-step',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ImportStatusChip, MatButton, MatIcon, ProblemsTable],
+  imports: [MatButton, MatIcon, ProblemsTable],
   templateUrl: './check-step.html',
   styleUrl: './check-step.scss',
 })

@@ -73,6 +73,25 @@ describe('MappingStep', () => {
     expect(root.textContent).toContain('1 required column has no column of your file yet.');
   });
 
+  it('opens the sheets that need a look and keeps those found by name closed', async () => {
+    const toggles = [...root.querySelectorAll<HTMLButtonElement>('.sheet-card__toggle')];
+    expect(toggles.map((toggle) => toggle.getAttribute('aria-expanded'))).toEqual([
+      'true', // Plants: read from "Sites", with other headers
+      'false', // Products: the template's own names
+      'false', // BOM
+      'true', // Suppliers: read from "Vendors"
+      'true', // Sourcing: required columns missing
+      'false', // Stock: not in the file
+    ]);
+    expect(root.textContent).toContain(
+      'Read from the sheet Products, 4 of 4 columns found by name.',
+    );
+    toggles[1]!.click();
+    await settle();
+    expect(toggles[1]!.getAttribute('aria-expanded')).toBe('true');
+    expect(root.querySelector<HTMLElement>('#map-products-body')!.hidden).toBe(false);
+  });
+
   it('re-fills the fields from the headers when another file sheet is chosen', async () => {
     choose('map-plants-sheet', 'Products');
     await settle();

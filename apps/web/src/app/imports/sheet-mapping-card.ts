@@ -1,5 +1,13 @@
-import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  input,
+  output,
+  signal,
+} from '@angular/core';
 import { MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
+import { MatButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import type { InspectedSheet, SheetName, WorkbookInspection } from '@keelson/contracts';
@@ -24,7 +32,7 @@ export const SAMPLE_ROW_LIMIT = 5;
 @Component({
   selector: 'kl-sheet-mapping-card',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatFormField, MatHint, MatIcon, MatInput, MatLabel],
+  imports: [MatButton, MatFormField, MatHint, MatIcon, MatInput, MatLabel],
   templateUrl: './sheet-mapping-card.html',
   styleUrl: './sheet-mapping-card.scss',
 })
@@ -67,6 +75,27 @@ export class SheetMappingCard {
     () => this.isRequired() && this.entry().sheetName === null,
   );
   protected readonly idPrefix = computed(() => `map-${this.sheet().toLowerCase()}`);
+  /**
+   * Whether the file's suggestion for this sheet needs a look: another sheet name, headers
+   * under other names, or required fields missing. Such cards open; the rest start closed.
+   */
+  protected readonly needsLook = computed(() => {
+    const suggestion = this.inspection().suggestions[this.sheet()];
+    if (!suggestion || suggestion.sheetName === null) {
+      return this.isRequired();
+    }
+    const renamed = Object.entries(suggestion.columns).some(
+      ([field, header]) => field !== header,
+    );
+    return suggestion.sheetName !== this.sheet() || renamed || suggestion.missingColumns.length > 0;
+  });
+  private readonly openChoice = signal<boolean | null>(null);
+  protected readonly isOpen = computed(() => this.openChoice() ?? this.needsLook());
+  protected readonly mappedCount = computed(() => Object.keys(this.entry().columns).length);
+
+  protected toggle(): void {
+    this.openChoice.set(!this.isOpen());
+  }
 
   protected onFileSheet(event: Event): void {
     const value = (event.target as HTMLSelectElement).value;
