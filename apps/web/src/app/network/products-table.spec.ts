@@ -11,6 +11,8 @@ import { provideRouter } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import type { NetworkProductDto } from '@keelson/contracts';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { Session } from '../auth/session';
+import { userWithRole } from '../testing/user-fixtures';
 import { PLANTS } from './network-fixtures';
 import { ProductsTable } from './products-table';
 
@@ -106,5 +108,21 @@ describe('ProductsTable', () => {
     const last = expectProducts();
     expect(params(last)).toMatchObject({ limit: '100', offset: '200' });
     last.flush({ items: PRODUCTS, total: 250 });
+  });
+
+  it("offers a plant manager only their own plants in the plant filter", async () => {
+    TestBed.inject(Session).signIn(userWithRole('plant_manager'));
+    harness = await RouterTestingHarness.create('/network/5/products');
+    root = harness.routeNativeElement!;
+    await settle();
+    backend.expectOne('/api/plants').flush({ items: PLANTS });
+    expectProducts().flush({ items: PRODUCTS, total: 1 });
+    await settle();
+    root.querySelector<HTMLElement>('.mat-mdc-select-trigger')!.click();
+    await settle();
+    const options = [...document.querySelectorAll('mat-option')].map((option) =>
+      option.textContent?.trim(),
+    );
+    expect(options).toEqual(['All plants', 'P-NORTH · Varnholm Works']);
   });
 });
