@@ -3,7 +3,7 @@ import { MatButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
 import { type ImportBatchDto, SHEET_NAMES } from '@keelson/contracts';
 import { REQUIRED_SHEETS } from '@keelson/workbook/fields';
-import { IMPORT_STATUS_HINTS } from './import-status';
+import { IMPORT_STATUS_HINTS, UNREADABLE_FILE_HINT } from './import-status';
 import { ImportsApi } from './imports-api';
 import { ProblemsTable } from './problems-table';
 
@@ -38,7 +38,11 @@ export class CheckStep {
   /** "Continue to commit". */
   readonly proceed = output<void>();
 
-  protected readonly statusHints = IMPORT_STATUS_HINTS;
+  /** False when the file could not be read at all, so there is nothing to map. */
+  protected readonly isReadable = computed(() => this.batch().format !== null);
+  protected readonly hint = computed(() =>
+    this.isReadable() ? IMPORT_STATUS_HINTS[this.batch().status] : UNREADABLE_FILE_HINT,
+  );
   protected readonly errorReportUrl = computed(() =>
     this.importsApi.errorReportUrl(this.batch().id),
   );

@@ -108,7 +108,8 @@ export class ImportPage {
     if (!batch) {
       return false;
     }
-    return key !== 'mapping' || batch.status !== 'committed';
+    // Nothing to map in a committed batch, or in a file that is not a spreadsheet at all.
+    return key !== 'mapping' || (batch.status !== 'committed' && batch.format !== null);
   }
 
   protected goTo(key: ImportStepKey): void {

@@ -19,3 +19,8 @@ export const IMPORT_STATUS_HINTS: Record<ImportStatus, string> = {
   ready: 'The file has no errors. You can commit it as a new network version.',
   committed: 'This file has been committed as a network version.',
 };
+
+/** The check step's sentence for a file that could not be read as a spreadsheet at all. */
+export const UNREADABLE_FILE_HINT =
+  'Keelson could not read this file as a spreadsheet; the error below says why. Upload an ' +
+  'Excel workbook (.xlsx), a CSV file or a zip of CSV files instead.';
