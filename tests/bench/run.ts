@@ -1,6 +1,6 @@
 /**
- * `npm run bench [-- --sizes 1000,10000,50000] [--sample 64]`: speed and memory of the analysis
- * engine on seeded tiered networks (about 20 edges per supplier). Each size runs in its own child
+ * `npm run bench [-- --sizes 1000,10000,50000] [--sample 64] [--no-import]`: speed and memory of
+ * the analysis engine on seeded tiered networks (about 20 edges per supplier). Each size runs in its own child
  * process so that its peak RSS (`process.resourceUsage().maxRSS`) is its own. Prints a table and
  * writes tests/bench/results.json. See docs/performance.md for the figures and how to read them.
  */
@@ -16,6 +16,7 @@ const { values } = parseArgs({
   options: {
     sizes: { type: 'string', default: '1000,10000,50000' },
     sample: { type: 'string', default: '64' },
+    import: { type: 'boolean', default: true },
     child: { type: 'string' },
   },
 });
@@ -50,14 +51,27 @@ if (values.child !== undefined) {
     );
     results.push(JSON.parse(output.trim().split('\n').at(-1)!) as SizeResult);
   }
+  let importResult: unknown = null;
+  if (values.import) {
+    // The buyer's import of a large workbook (issue: 100 000 Sourcing rows, 20 000 suppliers).
+    process.stderr.write('import: 20 000 suppliers, about 100 000 Sourcing rows...\n');
+    const output = execFileSync(
+      process.execPath,
+      ['--import', 'tsx', '--expose-gc', join(here, 'measure-import.ts')],
+      { encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'], maxBuffer: 1 << 24 },
+    );
+    importResult = JSON.parse(output.trim().split('\n').at(-1)!);
+  }
   const report = {
     command: `npm run bench -- --sizes ${sizes.join(',')} --sample ${values.sample}`,
     date: new Date().toISOString(),
     machine,
     results,
+    import: importResult,
   };
   writeFileSync(join(here, 'results.json'), `${JSON.stringify(report, null, 2)}\n`);
   process.stdout.write(formatTable(results));
+  if (importResult !== null) process.stdout.write(formatImport(importResult as ImportResult));
   const { cores, cpu, memoryGb, node } = machine;
   process.stdout.write(`\nMachine: ${cores} x ${cpu}, ${memoryGb} GB, Node ${node}, `);
   process.stdout.write(`load average at start ${machine.loadAverageAtStart.join(' / ')}\n`);
@@ -92,4 +106,32 @@ function formatTable(rows: SizeResult[]): string {
   const widths = header.map((h, i) => Math.max(h.length, ...cells.map((c) => c[i]!.length)));
   const line = (row: string[]) => row.map((c, i) => c.padStart(widths[i]!)).join('  ');
   return [line(header), line(widths.map((w) => '-'.repeat(w))), ...cells.map(line), ''].join('\n');
+}
+
+/** What tests/bench/measure-import.ts prints. */
+interface ImportResult {
+  suppliers: number;
+  sourcingRows: number;
+  bytes: number;
+  parseSeconds: number;
+  commitSeconds: number;
+  totalSeconds: number;
+  peakRssMb: number;
+  uploadSeconds: number;
+  secondCommitSeconds: number;
+  peakRssMbAll: number;
+}
+
+function formatImport(r: ImportResult): string {
+  const mb = (r.bytes / 2 ** 20).toFixed(1);
+  return [
+    '',
+    `Import of ${r.suppliers} suppliers and ${r.sourcingRows} Sourcing rows (${mb} MB .xlsx):`,
+    `  parse and validate ${r.parseSeconds.toFixed(2)} s + commit ${r.commitSeconds.toFixed(2)} s` +
+      ` = ${r.totalSeconds.toFixed(2)} s, peak RSS ${r.peakRssMb} MB`,
+    `  through the import service (upload, check, then commit with the changes against the` +
+      ` previous version): ${(r.uploadSeconds + r.secondCommitSeconds).toFixed(2)} s,` +
+      ` peak RSS ${r.peakRssMbAll} MB`,
+    '',
+  ].join('\n');
 }

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { eq } from 'drizzle-orm';
 import { afterEach, describe, expect, it } from 'vitest';
 import { ROLES } from '@keelson/contracts';
-import { openDatabase, IN_MEMORY, type OpenDatabase } from './open-database';
+import { connectionOf, openDatabase, IN_MEMORY, type OpenDatabase } from './open-database';
 import { USER_ROLES, plants, userPlants, users } from './schema';
 
 const NOW = '2026-01-05T08:00:00.000Z';
@@ -104,5 +104,22 @@ describe('openDatabase', () => {
 
   it('lists the same roles as the contracts', () => {
     expect([...USER_ROLES]).toEqual([...ROLES]);
+  });
+});
+
+describe('connectionOf', () => {
+  it('finds the one connection under the database and inside a transaction', () => {
+    const opened = openDatabase(IN_MEMORY);
+    try {
+      expect(connectionOf(opened.db)).toBe(opened.sqlite);
+      opened.db.transaction((tx) => {
+        const connection = connectionOf(tx);
+        expect(connection).toBe(opened.sqlite);
+        expect(connection.inTransaction).toBe(true);
+      });
+      expect(() => connectionOf({})).toThrow(/not a Drizzle better-sqlite3/);
+    } finally {
+      opened.close();
+    }
   });
 });

@@ -79,3 +79,18 @@ function openFailure(path: string, error: unknown): Error {
   const reason = error instanceof Error ? error.message : String(error);
   return new Error(`Could not open the database at ${path}: ${reason}`, { cause: error });
 }
+
+/**
+ * The better-sqlite3 connection under a Drizzle database or transaction handle, for bulk writes
+ * with prepared statements (inside a transaction: better-sqlite3 is synchronous, so statements
+ * on the same connection belong to the open transaction). Throws for any other object.
+ */
+export function connectionOf(handle: object): Database.Database {
+  const direct = (handle as { $client?: unknown }).$client;
+  const viaSession = (handle as { session?: { client?: unknown } }).session?.client;
+  const connection = direct ?? viaSession;
+  if (!(connection instanceof Database)) {
+    throw new TypeError('connectionOf: not a Drizzle better-sqlite3 database or transaction');
+  }
+  return connection;
+}

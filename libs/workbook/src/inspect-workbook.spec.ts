@@ -85,3 +85,26 @@ describe('inspectWorkbook', () => {
       columns: { plant_code: 'Site', plant_name: 'Name' } });
   });
 });
+
+describe('readWorkbook with inspect: true', () => {
+  it('gives the same inspection as inspectWorkbook, from one parse', async () => {
+    const sheets = smallNetworkSheets();
+    sheets['Vendors'] = sheets['Suppliers']!;
+    delete sheets['Suppliers'];
+    const data = await buildXlsx(sheets);
+    const { readWorkbook } = await import('./read-workbook');
+    const read = await readWorkbook(data, { inspect: true });
+    expect(read.inspection).toEqual(await inspectWorkbook(data));
+    expect(read.inspection?.missingSheets).not.toContain('Plants');
+    expect(read.errors.some((error) => /Suppliers/.test(error.message))).toBe(true);
+    expect((await readWorkbook(data)).inspection).toBeUndefined();
+  });
+
+  it('inspects a file that is not a spreadsheet as one with no sheets and the same error', async () => {
+    const { readWorkbook } = await import('./read-workbook');
+    const png = Uint8Array.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 1, 2, 3]);
+    const read = await readWorkbook(png, { inspect: true, fileName: 'suppliers.xlsx' });
+    expect(read.inspection?.sheets).toEqual([]);
+    expect(read.inspection?.errors).toEqual(read.errors);
+  });
+});

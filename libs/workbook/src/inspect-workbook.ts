@@ -64,7 +64,11 @@ export async function inspectCsvFiles(
   return inspectionOf(loadCsvFiles(files, resolveLimits(options.limits)), options.mapping);
 }
 
-function inspectionOf(source: LoadedSource, mapping: WorkbookMapping | undefined) {
+/** The inspection of an already loaded file (shared with `readWorkbook({inspect: true})`). */
+export function inspectionOf(
+  source: LoadedSource,
+  mapping: WorkbookMapping | undefined,
+): WorkbookInspection {
   const sheets = source.sheets.map((sheet) => inspectSheet(sheet, guessHeaderRow(sheet, null)));
   const suggestions = {} as Record<SheetName, SheetSuggestion>;
   const claimed = new Set<string>();

@@ -9,9 +9,11 @@ import {
   type SheetName,
   type SupplyModel,
   type WorkbookError,
+  type WorkbookInspection,
   type WorkbookWarning,
 } from '@keelson/contracts';
 import { loadCsvFiles, loadSource, type CsvFile, type LoadedSource } from './file-source';
+import { inspectionOf } from './inspect-workbook';
 import { resolveLimits, type WorkbookLimits } from './limits';
 import { layoutLocator } from './problem-locator';
 import { fileError, sheetOrderOf, sortErrors, sortWarnings } from './problems';
@@ -28,6 +30,8 @@ export interface ReadOptions {
   limits?: Partial<WorkbookLimits>;
   /** Where the template sheets and columns are in the file, when not under their own names. */
   mapping?: WorkbookMapping;
+  /** Also inspect the file for the mapping step, from the same parse (`result.inspection`). */
+  inspect?: boolean;
 }
 
 /** The outcome of reading a file. */
@@ -42,6 +46,8 @@ export interface ReadResult {
   counts: Partial<Record<SheetName, number>>;
   /** The input's format, told by content: an .xlsx, one CSV file, or a zip of CSV files. */
   format: 'xlsx' | 'csv' | 'zip';
+  /** With `inspect: true`: what {@link inspectWorkbook} would give for the same file. */
+  inspection?: WorkbookInspection;
 }
 
 /** Sheets that must hold at least one data row for a network to make sense. */
@@ -59,9 +65,14 @@ export async function readWorkbook(
 ): Promise<ReadResult> {
   try {
     const limits = resolveLimits(options.limits);
-    return resultOf(await loadSource(data, limits, options.fileName), options.mapping);
+    const source = await loadSource(data, limits, options.fileName);
+    const result = resultOf(source, options.mapping);
+    return options.inspect ? { ...result, inspection: inspectionOf(source, options.mapping) } : result;
   } catch (error) {
-    return unexpected(error, 'xlsx');
+    const result = unexpected(error, 'xlsx');
+    if (!options.inspect) return result;
+    const failed = { format: result.format, sheets: [], errors: result.errors };
+    return { ...result, inspection: inspectionOf(failed, options.mapping) };
   }
 }
 

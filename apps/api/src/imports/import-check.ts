@@ -14,7 +14,7 @@ import {
   type WorkbookMapping,
   type WorkbookWarning,
 } from '@keelson/contracts';
-import { inspectWorkbook, readWorkbook, type WorkbookLimits } from '@keelson/workbook';
+import { readWorkbook, type WorkbookLimits } from '@keelson/workbook';
 import type { StoredProblem } from '@keelson/db';
 
 /** What checking a file found. */
@@ -65,7 +65,9 @@ export function isLayoutError(error: WorkbookError): boolean {
 export async function checkFile(data: Uint8Array, options: CheckFileOptions): Promise<FileCheck> {
   const readOptions = { fileName: options.fileName, limits: options.limits,
     mapping: options.mapping };
-  const inspection = await inspectWorkbook(data, readOptions);
+  // One parse gives both the model and the mapping step's view of the file.
+  const read = await readWorkbook(data, { ...readOptions, inspect: true });
+  const inspection = read.inspection!;
   const sheets = inspection.sheets.map((sheet) => ({ name: sheet.name, rowCount: sheet.rowCount }));
   const format = inspection.sheets.length > 0 ? inspection.format : null;
   const headerSignature = inspection.sheets.length > 0 ? signatureOf(inspection) : null;
@@ -82,7 +84,6 @@ export async function checkFile(data: Uint8Array, options: CheckFileOptions): Pr
     return { status: 'rejected', format, sheets, counts: {}, errors: [error], warnings: [],
       headerSignature, model: null, inspection };
   }
-  const read = await readWorkbook(data, readOptions);
   const needsMapping = inspection.missingSheets.length > 0 || read.errors.some(isLayoutError);
   const status = read.errors.length === 0 ? 'ready' : needsMapping ? 'needs_mapping' : 'rejected';
   return {

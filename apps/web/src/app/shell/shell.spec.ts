@@ -13,11 +13,11 @@ import { Shell } from './shell';
 
 // What each role's sidenav shows, written out from the product brief.
 const EXPECTED_LINKS: Record<Role, string[]> = {
-  admin: ['Home', 'Users', 'Sent mail'],
-  buyer: ['Home'],
-  risk_manager: ['Home'],
-  plant_manager: ['Home'],
-  viewer: ['Home'],
+  admin: ['Home', 'Import', 'Network', 'Users', 'Sent mail', 'Countries'],
+  buyer: ['Home', 'Import', 'Network'],
+  risk_manager: ['Home', 'Network'],
+  plant_manager: ['Home', 'Network'],
+  viewer: ['Home', 'Network'],
 };
 
 describe('Shell', () => {
