@@ -7,11 +7,16 @@ import { openBrowser, screenshot, type BrowserSession } from './browser';
 import { startTestServer, type TestServer } from './server';
 
 const ACCOUNTS = [
-  { email: 'admin@demo.test', role: 'admin', sees: ['Home', 'Users', 'Sent mail'], hidden: [] },
-  { email: 'buyer@demo.test', role: 'buyer', sees: ['Home'], hidden: ['Users', 'Sent mail'] },
-  { email: 'risk@demo.test', role: 'risk_manager', sees: ['Home'], hidden: ['Users', 'Sent mail'] },
-  { email: 'plant.north@demo.test', role: 'plant_manager', sees: ['Home'], hidden: ['Users', 'Sent mail'] },
-  { email: 'viewer@demo.test', role: 'viewer', sees: ['Home'], hidden: ['Users', 'Sent mail'] },
+  { email: 'admin@demo.test', role: 'admin',
+    sees: ['Home', 'Import', 'Network', 'Users', 'Sent mail', 'Countries'], hidden: [] },
+  { email: 'buyer@demo.test', role: 'buyer', sees: ['Home', 'Import', 'Network'],
+    hidden: ['Users', 'Sent mail', 'Countries'] },
+  { email: 'risk@demo.test', role: 'risk_manager', sees: ['Home', 'Network'],
+    hidden: ['Import', 'Users', 'Sent mail'] },
+  { email: 'plant.north@demo.test', role: 'plant_manager', sees: ['Home', 'Network'],
+    hidden: ['Import', 'Users', 'Sent mail'] },
+  { email: 'viewer@demo.test', role: 'viewer', sees: ['Home', 'Network'],
+    hidden: ['Import', 'Users', 'Sent mail'] },
 ] as const;
 
 describe('signing in as each demo account', () => {

@@ -96,7 +96,8 @@ describe('CommitStep', () => {
     expect(lines[0]).toEqual(['Suppliers added', '2', 'V-7, V-9']);
     expect(lines[3]).toEqual(['Sourcing rows added', '3', '']);
     expect(lines[8]).toEqual(['Products changed', '1', 'PR-10']);
-    expect(root.querySelector('a[href="/network"]')?.textContent).toContain('Open the network');
+    expect(root.querySelector('a[href="/network/4/suppliers"]')?.textContent)
+      .toContain('Open network version 4');
     expect(committed.map((result) => result.networkVersionId)).toEqual([4]);
   });
 
@@ -139,6 +140,6 @@ describe('CommitStep', () => {
   it('for a batch committed earlier names its version and links the network', async () => {
     await create('committed');
     expect(root.textContent).toContain('This file became network version 4');
-    expect(root.querySelector('a[href="/network"]')).not.toBeNull();
+    expect(root.querySelector('a[href="/network/4/suppliers"]')).not.toBeNull();
   });
 });
