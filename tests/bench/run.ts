@@ -119,7 +119,8 @@ interface ImportResult {
   peakRssMb: number;
   uploadSeconds: number;
   secondCommitSeconds: number;
-  peakRssMbAll: number;
+  servicePeakRssMb: number;
+  serviceNodeFlags: string[];
 }
 
 function formatImport(r: ImportResult): string {
@@ -131,7 +132,7 @@ function formatImport(r: ImportResult): string {
       ` = ${r.totalSeconds.toFixed(2)} s, peak RSS ${r.peakRssMb} MB`,
     `  through the import service (upload, check, then commit with the changes against the` +
       ` previous version): ${(r.uploadSeconds + r.secondCommitSeconds).toFixed(2)} s,` +
-      ` peak RSS ${r.peakRssMbAll} MB`,
+      ` peak RSS ${r.servicePeakRssMb} MB (node ${r.serviceNodeFlags.join(' ')})`,
     '',
   ].join('\n');
 }
