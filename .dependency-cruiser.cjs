@@ -3,7 +3,7 @@
  * The pure libraries (workbook, supply-graph, contracts) must run in a worker, the command line
  * and the browser alike, so they may not reach Node built-ins, Express, Drizzle, Angular or RxJS.
  */
-const PURE_LIBS = '^libs/(workbook|supply-graph|contracts)/';
+const PURE_LIBS = '^libs/(workbook|supply-graph|contracts|scoring)/';
 module.exports = {
   forbidden: [
     {
@@ -35,7 +35,7 @@ module.exports = {
       severity: 'error',
       comment: 'Contracts hold shared types and zod schemas only.',
       from: { path: '^libs/contracts/' },
-      to: { path: '^libs/(db|workbook|supply-graph)/' },
+      to: { path: '^libs/(db|workbook|supply-graph|scoring)/' },
     },
     {
       name: 'graph-and-workbook-independent',

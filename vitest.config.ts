@@ -9,6 +9,7 @@ export const keelsonAliases = {
   '@keelson/db': here('./libs/db/src/index.ts'),
   '@keelson/workbook/fields': here('./libs/workbook/src/fields.ts'),
   '@keelson/workbook': here('./libs/workbook/src/index.ts'),
+  '@keelson/scoring': here('./libs/scoring/src/index.ts'),
   '@keelson/supply-graph/testing': here('./libs/supply-graph/src/testing/index.ts'),
   '@keelson/supply-graph': here('./libs/supply-graph/src/index.ts'),
 };

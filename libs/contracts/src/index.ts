@@ -1,4 +1,6 @@
 export * from './auth';
 export * from './imports';
 export * from './network';
+export * from './register';
+export * from './runs';
 export * from './supply-model';

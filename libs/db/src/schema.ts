@@ -401,6 +401,209 @@ export const countries = sqliteTable(
   (table) => [check('countries_hazard_range', sql`${table.hazard} between 1 and 5`)],
 );
 
+/** Run statuses; the same list as `RUN_STATUSES` in `@keelson/contracts`. */
+export const RUN_STATUS_VALUES = ['queued', 'running', 'succeeded', 'failed', 'cancelled'] as const;
+
+/** Analysis runs: one analysis of one network version, with its progress and outcome. */
+export const analysisRuns = sqliteTable(
+  'analysis_runs',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    networkVersionId: integer('network_version_id')
+      .notNull()
+      .references(() => networkVersions.id),
+    label: text('label').notNull(),
+    /** `manual` (a risk manager started it) or `quarterly` (the re-scoring job). */
+    kind: text('kind', { enum: ['manual', 'quarterly'] }).notNull().default('manual'),
+    status: text('status', { enum: RUN_STATUS_VALUES }).notNull(),
+    /** 0 - 1. */
+    progress: real('progress').notNull().default(0),
+    /** The engine's current stage while running. */
+    stage: text('stage'),
+    error: text('error'),
+    /** `AnalysisTotals` of the engine, JSON. */
+    totals: text('totals', { mode: 'json' }).$type<Record<string, unknown>>(),
+    /** Milliseconds per stage, JSON. */
+    timings: text('timings', { mode: 'json' }).$type<Record<string, number>>(),
+    /** `methods` of the engine's result (how closeness was computed), JSON. */
+    methods: text('methods', { mode: 'json' }).$type<Record<string, unknown>>(),
+    /** The scoring settings the run's register scores used, JSON (a `ScoringSettings`). */
+    scoringSettings: text('scoring_settings', { mode: 'json' }).$type<Record<string, unknown>>(),
+    createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: text('created_at').notNull(),
+    startedAt: text('started_at'),
+    finishedAt: text('finished_at'),
+  },
+  (table) => [
+    index('analysis_runs_version_index').on(table.networkVersionId),
+    index('analysis_runs_created_index').on(table.createdAt),
+    check(
+      'analysis_runs_status_known',
+      sql`${table.status} in ('queued', 'running', 'succeeded', 'failed', 'cancelled')`,
+    ),
+  ],
+);
+
+/**
+ * One supplier's result in a run: every field of spec section 6 plus tier, nexus index and the
+ * register score. Written once when the run succeeds, in one transaction; never changed.
+ */
+export const runSuppliers = sqliteTable(
+  'run_suppliers',
+  {
+    runId: integer('run_id')
+      .notNull()
+      .references(() => analysisRuns.id, { onDelete: 'cascade' }),
+    code: text('code').notNull(),
+    name: text('name').notNull(),
+    country: text('country').notNull(),
+    region: text('region').notNull(),
+    tier: integer('tier'),
+    /** Rank by revenue impact, then products lost, then code (1 = first). */
+    rank: integer('rank').notNull(),
+    /** Product codes, JSON array, sorted. */
+    productsLost: text('products_lost', { mode: 'json' }).$type<string[]>().notNull(),
+    productsLostCount: integer('products_lost_count').notNull(),
+    /** Plants of the lost products, JSON array, sorted. */
+    plants: text('plants', { mode: 'json' }).$type<string[]>().notNull(),
+    revenueExposedPerWeek: real('revenue_exposed_per_week').notNull(),
+    revenueImpact: real('revenue_impact').notNull(),
+    timeToRecover: real('time_to_recover').notNull(),
+    singlePointOfFailure: integer('single_point_of_failure', { mode: 'boolean' }).notNull(),
+    betweenness: real('betweenness').notNull(),
+    degree: real('degree').notNull(),
+    closeness: real('closeness').notNull(),
+    eigenvector: real('eigenvector').notNull(),
+    pagerank: real('pagerank').notNull(),
+    nexusIndex: real('nexus_index').notNull(),
+    /** Time to survive and lost weeks per lost product (`ProductImpact[]`), JSON. */
+    products: text('products', { mode: 'json' }).$type<Record<string, unknown>[]>().notNull(),
+    /** Likelihood 1-5 as computed from the supplier's data (before any override). */
+    likelihood: integer('likelihood').notNull(),
+    /** The factor risks behind it (`LikelihoodResult['factors']`), JSON. */
+    likelihoodFactors: text('likelihood_factors', { mode: 'json' })
+      .$type<Record<string, number>>()
+      .notNull(),
+    impactBand: integer('impact_band').notNull(),
+    rating: integer('rating').notNull(),
+    ratingBand: text('rating_band', { enum: ['low', 'medium', 'high', 'critical'] }).notNull(),
+  },
+  (table) => [
+    primaryKey({ columns: [table.runId, table.code] }),
+    index('run_suppliers_rank_index').on(table.runId, table.rank),
+    index('run_suppliers_code_index').on(table.code, table.runId),
+  ],
+);
+
+/** Which plants each run result touches (lost products' plants), for plant-scoped reading. */
+export const runSupplierPlants = sqliteTable(
+  'run_supplier_plants',
+  {
+    runId: integer('run_id')
+      .notNull()
+      .references(() => analysisRuns.id, { onDelete: 'cascade' }),
+    code: text('code').notNull(),
+    plantCode: text('plant_code').notNull(),
+  },
+  (table) => [
+    primaryKey({ columns: [table.runId, table.code, table.plantCode] }),
+    index('run_supplier_plants_plant_index').on(table.runId, table.plantCode),
+  ],
+);
+
+/** Saved failure sets, to rerun on later network versions. */
+export const scenarios = sqliteTable(
+  'scenarios',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    name: text('name').notNull(),
+    description: text('description'),
+    /** Supplier codes, countries and regions that fail together, JSON arrays. */
+    suppliers: text('suppliers', { mode: 'json' }).$type<string[]>().notNull(),
+    countries: text('countries', { mode: 'json' }).$type<string[]>().notNull(),
+    regions: text('regions', { mode: 'json' }).$type<string[]>().notNull(),
+    createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: text('created_at').notNull(),
+    updatedAt: text('updated_at').notNull(),
+  },
+  (table) => [uniqueIndex('scenarios_name_unique').on(table.name)],
+);
+
+/** Register entry statuses; the same list as `REGISTER_STATUSES` in `@keelson/contracts`. */
+export const REGISTER_STATUS_VALUES = ['open', 'mitigating', 'accepted', 'closed'] as const;
+
+/** The risk register: one entry per supplier risk. */
+export const registerEntries = sqliteTable(
+  'register_entries',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    supplierCode: text('supplier_code').notNull(),
+    title: text('title').notNull(),
+    /** `automatic` (a run created it) or `manual`. */
+    origin: text('origin', { enum: ['automatic', 'manual'] }).notNull(),
+    status: text('status', { enum: REGISTER_STATUS_VALUES }).notNull().default('open'),
+    ownerId: integer('owner_id').references(() => users.id, { onDelete: 'set null' }),
+    /** The run whose results the entry's scores come from. */
+    runId: integer('run_id').references(() => analysisRuns.id, { onDelete: 'set null' }),
+    computedLikelihood: integer('computed_likelihood').notNull(),
+    /** A risk manager's likelihood, with the reason kept in `likelihood_overrides`. */
+    likelihoodOverride: integer('likelihood_override'),
+    impactBand: integer('impact_band').notNull(),
+    /** impact band x (override ?? computed likelihood). */
+    rating: integer('rating').notNull(),
+    ratingBand: text('rating_band', { enum: ['low', 'medium', 'high', 'critical'] }).notNull(),
+    notes: text('notes').notNull().default(''),
+    createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: text('created_at').notNull(),
+    updatedAt: text('updated_at').notNull(),
+  },
+  (table) => [
+    index('register_entries_supplier_index').on(table.supplierCode),
+    index('register_entries_rating_index').on(table.rating),
+    check(
+      'register_entries_status_known',
+      sql`${table.status} in ('open', 'mitigating', 'accepted', 'closed')`,
+    ),
+    check(
+      'register_entries_override_range',
+      sql`${table.likelihoodOverride} is null or ${table.likelihoodOverride} between 1 and 5`,
+    ),
+  ],
+);
+
+/** Plants an entry affects (for plant managers' scope). */
+export const registerEntryPlants = sqliteTable(
+  'register_entry_plants',
+  {
+    entryId: integer('entry_id')
+      .notNull()
+      .references(() => registerEntries.id, { onDelete: 'cascade' }),
+    plantCode: text('plant_code').notNull(),
+  },
+  (table) => [
+    primaryKey({ columns: [table.entryId, table.plantCode] }),
+    index('register_entry_plants_plant_index').on(table.plantCode),
+  ],
+);
+
+/** Every likelihood override of an entry, kept: who, when, from what, to what, and why. */
+export const likelihoodOverrides = sqliteTable(
+  'likelihood_overrides',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    entryId: integer('entry_id')
+      .notNull()
+      .references(() => registerEntries.id, { onDelete: 'cascade' }),
+    /** The new likelihood 1-5, or null when the override was removed (back to computed). */
+    likelihood: integer('likelihood'),
+    previous: integer('previous'),
+    reason: text('reason').notNull(),
+    userId: integer('user_id').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: text('created_at').notNull(),
+  },
+  (table) => [index('likelihood_overrides_entry_index').on(table.entryId)],
+);
+
 /** A row of `users`. */
 export type UserRow = typeof users.$inferSelect;
 /** A new row of `users`. */
@@ -421,3 +624,9 @@ export type NetworkVersionRow = typeof networkVersions.$inferSelect;
 export type NetworkSupplierRow = typeof networkSuppliers.$inferSelect;
 /** A row of `countries`. */
 export type CountryRow = typeof countries.$inferSelect;
+/** A row of `analysis_runs`. */
+export type AnalysisRunRow = typeof analysisRuns.$inferSelect;
+/** A row of `run_suppliers`. */
+export type RunSupplierRow = typeof runSuppliers.$inferSelect;
+/** A row of `register_entries`. */
+export type RegisterEntryRow = typeof registerEntries.$inferSelect;
