@@ -8,7 +8,8 @@ import { startTestServer, type TestServer } from './server';
 
 const ACCOUNTS = [
   { email: 'admin@demo.test', role: 'admin',
-    sees: ['Home', 'Import', 'Network', 'Users', 'Sent mail', 'Countries'], hidden: [] },
+    sees: ['Home', 'Import', 'Network', 'Risk register', 'Users', 'Countries', 'Scoring'],
+    hidden: [] },
   { email: 'buyer@demo.test', role: 'buyer', sees: ['Home', 'Import', 'Network'],
     hidden: ['Users', 'Sent mail', 'Countries'] },
   { email: 'risk@demo.test', role: 'risk_manager', sees: ['Home', 'Network'],

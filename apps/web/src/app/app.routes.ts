@@ -41,6 +41,21 @@ export const routes: Routes = [
         loadChildren: () => import('./network/network.routes').then((m) => m.networkRoutes),
       },
       {
+        path: 'runs',
+        canActivate: [navigationGuard('runs')],
+        loadChildren: () => import('./runs/runs.routes').then((m) => m.runsRoutes),
+      },
+      {
+        path: 'risk',
+        canActivate: [navigationGuard('risk')],
+        loadChildren: () => import('./risk/risk.routes').then((m) => m.riskRoutes),
+      },
+      {
+        path: 'register',
+        canActivate: [navigationGuard('register')],
+        loadChildren: () => import('./register/register.routes').then((m) => m.registerRoutes),
+      },
+      {
         path: 'admin',
         loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes),
       },

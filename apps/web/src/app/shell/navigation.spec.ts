@@ -6,11 +6,16 @@ import { NAVIGATION, type NavigationPath, navigationFor, rolesFor } from './navi
 // all; Import for buyers and administrators; Users, Sent mail and Countries for administrators),
 // not derived from NAVIGATION itself.
 const EXPECTED: Record<Role, string[]> = {
-  admin: ['Home', 'Import', 'Network', 'Users', 'Sent mail', 'Countries'],
-  buyer: ['Home', 'Import', 'Network'],
-  risk_manager: ['Home', 'Network'],
-  plant_manager: ['Home', 'Network'],
-  viewer: ['Home', 'Network'],
+  admin: ['Home', 'Import', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
+    'Risk register', 'Users', 'Sent mail', 'Countries', 'Scoring'],
+  buyer: ['Home', 'Import', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
+    'Risk register'],
+  risk_manager: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
+    'Risk register'],
+  plant_manager: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
+    'Risk register'],
+  viewer: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
+    'Risk register'],
 };
 
 describe('navigationFor', () => {

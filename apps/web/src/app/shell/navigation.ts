@@ -23,9 +23,14 @@ export const NAVIGATION = [
   { label: 'Home', icon: 'home', path: 'home', roles: ROLES },
   { label: 'Import', icon: 'upload_file', path: 'imports', roles: ['buyer', 'admin'] },
   { label: 'Network', icon: 'account_tree', path: 'network', roles: ROLES },
+  { label: 'Analysis runs', icon: 'insights', path: 'runs', roles: ROLES },
+  { label: 'Scenarios', icon: 'thunderstorm', path: 'runs/scenarios', roles: ROLES },
+  { label: 'Network picture', icon: 'hub', path: 'risk', roles: ROLES },
+  { label: 'Risk register', icon: 'fact_check', path: 'register', roles: ROLES },
   { label: 'Users', icon: 'manage_accounts', path: 'admin/users', roles: ['admin'] },
   { label: 'Sent mail', icon: 'outgoing_mail', path: 'admin/mail', roles: ['admin'] },
   { label: 'Countries', icon: 'public', path: 'admin/countries', roles: ['admin'] },
+  { label: 'Scoring', icon: 'tune', path: 'admin/scoring', roles: ['admin'] },
 ] as const satisfies readonly NavigationEntry[];
 
 /** A path that has an entry in {@link NAVIGATION}. */

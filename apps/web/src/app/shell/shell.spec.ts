@@ -13,11 +13,16 @@ import { Shell } from './shell';
 
 // What each role's sidenav shows, written out from the product brief.
 const EXPECTED_LINKS: Record<Role, string[]> = {
-  admin: ['Home', 'Import', 'Network', 'Users', 'Sent mail', 'Countries'],
-  buyer: ['Home', 'Import', 'Network'],
-  risk_manager: ['Home', 'Network'],
-  plant_manager: ['Home', 'Network'],
-  viewer: ['Home', 'Network'],
+  admin: ['Home', 'Import', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
+    'Risk register', 'Users', 'Sent mail', 'Countries', 'Scoring'],
+  buyer: ['Home', 'Import', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
+    'Risk register'],
+  risk_manager: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
+    'Risk register'],
+  plant_manager: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
+    'Risk register'],
+  viewer: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
+    'Risk register'],
 };
 
 describe('Shell', () => {
