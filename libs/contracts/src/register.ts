@@ -53,6 +53,8 @@ export interface RegisterEntryDetailDto extends RegisterEntryDto {
 export const REGISTER_SORT_FIELDS = [
   'id', 'title', 'supplierCode', 'status', 'likelihood', 'impactBand', 'rating', 'updatedAt',
 ] as const;
+/** One of {@link REGISTER_SORT_FIELDS}. */
+export type RegisterSortField = (typeof REGISTER_SORT_FIELDS)[number];
 
 /** GET /api/register query. */
 export const listRegisterQuerySchema = z.object({
@@ -96,3 +98,17 @@ export const overrideLikelihoodSchema = z.object({
 });
 /** POST /api/register/:id/likelihood body. */
 export type OverrideLikelihoodInput = z.infer<typeof overrideLikelihoodSchema>;
+
+/** GET /api/register answer: one page of entries and how many match the filters. */
+export interface RegisterListDto {
+  items: RegisterEntryDto[];
+  total: number;
+}
+
+/** GET /api/register/export.xlsx query: the list's filters and sort, every matching entry. */
+export const exportRegisterQuerySchema = listRegisterQuerySchema.omit({ limit: true, offset: true });
+/** GET /api/register/export.xlsx query. */
+export type ExportRegisterQuery = z.infer<typeof exportRegisterQuerySchema>;
+
+/** Name of the export's sheet that explains the scores. */
+export const REGISTER_ABOUT_SHEET = 'About these numbers';

@@ -5,7 +5,7 @@
  * rating is recomputed with the entry's own override when it has one. Entries are never deleted
  * or closed by a run: people decide that.
  */
-import { and, eq } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import {
   registerEntries,
   registerEntryPlants,
@@ -50,8 +50,11 @@ export function syncRegisterFromRun(
   let updated = 0;
   const setPlants = (entryId: number, plants: readonly string[]) => {
     db.delete(registerEntryPlants).where(eq(registerEntryPlants.entryId, entryId)).run();
-    for (const plantCode of plants) {
-      db.insert(registerEntryPlants).values({ entryId, plantCode }).run();
+    // One multi-row insert per entry; a lost product's plant appears once in `plants`.
+    const unique = [...new Set(plants)];
+    if (unique.length > 0) {
+      db.insert(registerEntryPlants).values(unique.map((plantCode) => ({ entryId, plantCode })))
+        .run();
     }
   };
   for (const result of results) {
@@ -62,7 +65,7 @@ export function syncRegisterFromRun(
       db.update(registerEntries)
         .set({ runId, computedLikelihood: result.likelihood, impactBand: result.impactBand,
           rating: score.rating, ratingBand: score.ratingBand, updatedAt: stamp })
-        .where(and(eq(registerEntries.id, entry.id)))
+        .where(eq(registerEntries.id, entry.id))
         .run();
       setPlants(entry.id, result.plants);
       updated++;
