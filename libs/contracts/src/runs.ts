@@ -221,3 +221,15 @@ export interface ScenarioDto extends FailureSet {
   createdAt: string;
   updatedAt: string;
 }
+
+/** GET /api/analysis-runs query: a page of runs, newest first, optionally of one version. */
+export const listRunsQuerySchema = z.object({
+  limit: z.coerce.number().int().min(1).max(200).default(20),
+  offset: z.coerce.number().int().min(0).max(10_000_000).default(0),
+  networkVersionId: z.coerce.number().int().positive().optional(),
+});
+/** GET /api/analysis-runs query. */
+export type ListRunsQuery = z.infer<typeof listRunsQuerySchema>;
+
+/** Error code of GET /api/analysis-runs/:id/... results when the run has not succeeded. */
+export const RUN_NOT_READY = 'run_not_ready';

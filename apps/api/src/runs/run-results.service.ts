@@ -1,0 +1,136 @@
+/**
+ * A succeeded run's results as people read them: the ranking (sorted, filtered, paged), a
+ * supplier's risk page (failure paths, history, register entry), the heat map and the Pareto
+ * head. Plant managers see only rows whose lost products include one of their plants.
+ */
+import {
+  RUN_NOT_READY,
+  type HeatMapDto,
+  type ListRunSuppliersQuery,
+  type ParetoDto,
+  type RunSupplierDetailDto,
+  type RunSupplierDto,
+} from '@keelson/contracts';
+import type { KeelsonDatabase } from '@keelson/db';
+import { failurePaths, type SupplyGraph } from '@keelson/supply-graph';
+import { AppError, conflict, notFound } from '../http/app-error';
+import type { SessionUser } from '../http/auth-context';
+import { checkPlantFilter, effectivePlants, plantScopeOf } from '../network/plant-scope';
+import type { NetworkGraphCache } from './network-graph-cache';
+import {
+  RunResultsRepository,
+  type RunSupplierFilter,
+  type StoredRunSupplier,
+} from './run-results.repository';
+import { toProductPath } from './scenario-paths';
+import { RunsRepository, type RunRecord } from './runs.repository';
+
+/** How many suppliers the Pareto chart shows. */
+export const PARETO_SIZE = 200;
+
+/** Reads run results within the user's plant scope. */
+export class RunResultsService {
+  private readonly results: RunResultsRepository;
+  private readonly runs: RunsRepository;
+
+  constructor(db: KeelsonDatabase, private readonly graphs: NetworkGraphCache) {
+    this.results = new RunResultsRepository(db);
+    this.runs = new RunsRepository(db);
+  }
+
+  /** A page of the ranking; 403 `plant_forbidden` for another plant's filter. */
+  suppliers(user: SessionUser, runId: number, query: ListRunSuppliersQuery):
+    { items: RunSupplierDto[]; total: number } {
+    this.readyRun(runId);
+    const { rows, total } = this.results.page(runId, this.filterOf(user, query), query);
+    return { items: rows.map(withoutProducts), total };
+  }
+
+  /** Every row in scope, in rank order, with the run (the export). */
+  everySupplier(user: SessionUser, runId: number):
+    { run: RunRecord; rows: StoredRunSupplier[] } {
+    const run = this.readyRun(runId);
+    return { run, rows: this.results.all(runId, { plants: plantScopeOf(user) }) };
+  }
+
+  /** One supplier's risk page; 404 when it is not in the run or not in the user's scope. */
+  detail(user: SessionUser, runId: number, code: string): RunSupplierDetailDto {
+    const run = this.readyRun(runId);
+    const row = this.results.find(runId, code);
+    const scope = plantScopeOf(user);
+    if (!row || (scope !== null && !row.plants.some((plant) => scope.includes(plant)))) {
+      throw notFound(!row || scope === null
+        ? `Supplier ${code} is not in analysis run ${runId}.`
+        : `Supplier ${code} does not touch your plants in analysis run ${runId}.`);
+    }
+    const { graph } = this.graphs.get(run.networkVersionId);
+    const paths = row.productsLost.length > 0 ? failurePathsOf(graph, code) : [];
+    return {
+      ...row,
+      runId,
+      networkVersionId: run.networkVersionId,
+      failurePaths: paths,
+      history: this.results.history(code),
+      registerEntryId: this.results.registerEntryId(code),
+    };
+  }
+
+  /** Counts per heat-map cell within the scope; `cells[likelihood - 1][impactBand - 1]`. */
+  heatMap(user: SessionUser, runId: number): HeatMapDto {
+    this.readyRun(runId);
+    const cells = Array.from({ length: 5 }, () => [0, 0, 0, 0, 0]);
+    let total = 0;
+    for (const cell of this.results.heatMap(runId, plantScopeOf(user))) {
+      cells[cell.likelihood - 1]![cell.impactBand - 1] = cell.count;
+      total += cell.count;
+    }
+    return { cells, total };
+  }
+
+  /** The first {@link PARETO_SIZE} suppliers by revenue impact and their running share. */
+  pareto(user: SessionUser, runId: number): ParetoDto {
+    this.readyRun(runId);
+    const { rows, total } = this.results.pareto(runId, plantScopeOf(user), PARETO_SIZE);
+    let running = 0;
+    const items = rows.map((row) => {
+      running += row.revenueImpact;
+      return { ...row, cumulativeShare: total > 0 ? Math.min(1, running / total) : 0 };
+    });
+    return { items, totalRevenueImpact: total };
+  }
+
+  /** The run, or 404; 409 `run_not_ready` unless it has succeeded. */
+  readyRun(runId: number): RunRecord {
+    const run = this.runs.find(runId);
+    if (!run) throw notFound(`There is no analysis run ${runId}.`);
+    if (run.status !== 'succeeded') {
+      throw conflict(RUN_NOT_READY, `Analysis run ${runId} is ${run.status}; results exist ` +
+        'only once it has succeeded.', { status: run.status });
+    }
+    return run;
+  }
+
+  private filterOf(user: SessionUser, query: ListRunSuppliersQuery): RunSupplierFilter {
+    const scope = plantScopeOf(user);
+    checkPlantFilter(scope, query.plant);
+    const { limit: _limit, offset: _offset, sort: _sort, order: _order, plant, ...filters } =
+      query;
+    return { ...filters, plants: effectivePlants(scope, plant) };
+  }
+}
+
+function failurePathsOf(graph: SupplyGraph, code: string):
+  RunSupplierDetailDto['failurePaths'] {
+  try {
+    return failurePaths(graph, code).map(toProductPath);
+  } catch (error) {
+    // The run's rows and the version's graph come from the same rows; a mismatch is a bug.
+    throw new AppError('internal_error', 500,
+      `Could not trace the failure paths of ${code}: ${(error as Error).message}`);
+  }
+}
+
+function withoutProducts(row: StoredRunSupplier): RunSupplierDto {
+  const { products: _products, ...rest } = row;
+  return rest;
+}
