@@ -22,4 +22,10 @@ export const adminRoutes: Routes = [
     canActivate: [navigationGuard('admin/countries')],
     loadComponent: () => import('./countries-page').then((m) => m.CountriesPage),
   },
+  {
+    path: 'scoring',
+    title: 'Scoring · Keelson',
+    canActivate: [navigationGuard('admin/scoring')],
+    loadComponent: () => import('./scoring-settings-page').then((m) => m.ScoringSettingsPage),
+  },
 ];

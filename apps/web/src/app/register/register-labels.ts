@@ -1,0 +1,51 @@
+import {
+  RATING_BANDS,
+  REGISTER_STATUSES,
+  type RatingBand,
+  type RegisterStatus,
+} from '@keelson/contracts';
+
+/** What each status is called on screen. */
+export const STATUS_LABELS: Readonly<Record<RegisterStatus, string>> = {
+  open: 'Open',
+  mitigating: 'Mitigating',
+  accepted: 'Accepted',
+  closed: 'Closed',
+};
+
+/** What each rating band is called on screen. */
+export const BAND_LABELS: Readonly<Record<RatingBand, string>> = {
+  low: 'Low',
+  medium: 'Medium',
+  high: 'High',
+  critical: 'Critical',
+};
+
+/**
+ * A shape per band, so a band reads without colour (a black-and-white print, colour blindness):
+ * empty circle, half circle, full circle, triangle.
+ */
+export const BAND_MARKERS: Readonly<Record<RatingBand, string>> = {
+  low: '○',
+  medium: '◐',
+  high: '●',
+  critical: '▲',
+};
+
+/** The statuses in display order. */
+export const STATUSES = REGISTER_STATUSES;
+/** The bands in display order, lowest first. */
+export const BANDS = RATING_BANDS;
+
+/** True when `value` is one of the register statuses. */
+export function isRegisterStatus(value: string | undefined): value is RegisterStatus {
+  return (REGISTER_STATUSES as readonly string[]).includes(value ?? '');
+}
+
+/** True when `value` is one of the rating bands. */
+export function isRatingBand(value: string | undefined): value is RatingBand {
+  return (RATING_BANDS as readonly string[]).includes(value ?? '');
+}
+
+/** The roles that create and edit register entries and override likelihoods. */
+export const REGISTER_WRITERS = ['risk_manager', 'admin'] as const;
