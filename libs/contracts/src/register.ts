@@ -106,7 +106,10 @@ export interface RegisterListDto {
 }
 
 /** GET /api/register/export.xlsx query: the list's filters and sort, every matching entry. */
-export const exportRegisterQuerySchema = listRegisterQuerySchema.omit({ limit: true, offset: true });
+export const exportRegisterQuerySchema = listRegisterQuerySchema.omit({
+  limit: true,
+  offset: true,
+});
 /** GET /api/register/export.xlsx query. */
 export type ExportRegisterQuery = z.infer<typeof exportRegisterQuerySchema>;
 

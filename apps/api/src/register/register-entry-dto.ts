@@ -55,5 +55,8 @@ export function toRegisterEntryDetailDto(
   plants: readonly string[],
   overrides: readonly LikelihoodOverrideRecord[],
 ): RegisterEntryDetailDto {
-  return { ...toRegisterEntryDto(record, plants), overrides: overrides.map(toLikelihoodOverrideDto) };
+  return {
+    ...toRegisterEntryDto(record, plants),
+    overrides: overrides.map(toLikelihoodOverrideDto),
+  };
 }

@@ -90,7 +90,9 @@ export class RegisterService {
   create(user: SessionUser, input: CreateRegisterEntryInput): RegisterEntryDetailDto {
     const { repository, db } = this.deps;
     const versionId = latestNetworkVersionId(db);
-    const supplier = versionId === null ? undefined : repository.supplier(versionId, input.supplierCode);
+    const supplier = versionId === null
+      ? undefined
+      : repository.supplier(versionId, input.supplierCode);
     if (versionId === null || !supplier) {
       const where = versionId === null ? 'no network has been imported yet'
         : `it is not in the latest network version (${versionId})`;
