@@ -40,6 +40,13 @@ const PLANT_CONDITION = (count: number) =>
   `EXISTS (SELECT 1 FROM run_supplier_plants p WHERE p.run_id = s.run_id AND p.code = s.code ` +
   `AND p.plant_code IN (${Array.from({ length: count }, () => '?').join(', ')}))`;
 
+// Every column but `products` (a list does not show time to survive per product).
+const LIST_COLUMNS = ['rank', 'code', 'name', 'country', 'region', 'tier', 'products_lost',
+  'plants', 'revenue_exposed_per_week', 'revenue_impact', 'time_to_recover',
+  'single_point_of_failure', 'betweenness', 'degree', 'closeness', 'eigenvector', 'pagerank',
+  'nexus_index', 'likelihood', 'likelihood_factors', 'impact_band', 'rating', 'rating_band']
+  .map((name) => `s.${name}`).join(', ');
+
 interface RawRow {
   rank: number; code: string; name: string; country: string; region: string;
   tier: number | null; products_lost: string; plants: string;
@@ -63,19 +70,30 @@ export class RunResultsRepository {
     this.connection = connectionOf(db);
   }
 
-  /** A page of the ranking and the number of rows matching the filters. */
+  /**
+   * A page of the ranking and the number of rows matching the filters. Two steps: the sort
+   * runs over row ids and sort keys only, then the page's rows are read by id, so a sort over
+   * ten thousand rows never carries their JSON columns through the sorter.
+   */
   page(runId: number, filter: RunSupplierFilter, page: Pick<ListRunSuppliersQuery,
-    'limit' | 'offset' | 'sort' | 'order'>): { rows: StoredRunSupplier[]; total: number } {
+    'limit' | 'offset' | 'sort' | 'order'>): { rows: RunSupplierDto[]; total: number } {
     const { where, params } = this.where(runId, filter);
     const direction = page.order === 'desc' ? 'DESC' : 'ASC';
     // NULL tiers sort last either way; rank breaks ties so pages never overlap.
     const column = SORT_COLUMNS[page.sort];
-    const order = `${column} IS NULL, ${column} ${direction}, rank ASC`;
-    const rows = this.prepare(`SELECT * FROM run_suppliers s WHERE ${where} ORDER BY ${order} ` +
-      'LIMIT ? OFFSET ?').all(...params, page.limit, page.offset) as RawRow[];
+    const order = `s.${column} IS NULL, s.${column} ${direction}, s.rank ASC`;
+    const ids = this.prepare(`SELECT s.rowid FROM run_suppliers s WHERE ${where} ` +
+      `ORDER BY ${order} LIMIT ? OFFSET ?`).pluck().all(...params, page.limit, page.offset) as
+      number[];
     const total = (this.prepare(`SELECT count(*) AS total FROM run_suppliers s WHERE ${where}`)
       .get(...params) as { total: number }).total;
-    return { rows: rows.map(toStored), total };
+    if (ids.length === 0) return { rows: [], total };
+    const found = this.prepare(`SELECT s.rowid AS row_id, ${LIST_COLUMNS} FROM run_suppliers s ` +
+      `WHERE s.rowid IN (SELECT value FROM json_each(?))`).all(JSON.stringify(ids)) as
+      (Omit<RawRow, 'products'> & { row_id: number })[];
+    const byId = new Map(found.map((row) => [row.row_id, row]));
+    const rows = ids.map((id) => toDto(byId.get(id)!));
+    return { rows, total };
   }
 
   /** Every row matching the filters, in rank order (the export). */
@@ -166,6 +184,10 @@ export class RunResultsRepository {
 }
 
 function toStored(row: RawRow): StoredRunSupplier {
+  return { ...toDto(row), products: JSON.parse(row.products) as ProductImpact[] };
+}
+
+function toDto(row: Omit<RawRow, 'products'>): RunSupplierDto {
   return {
     rank: row.rank,
     code: row.code,
@@ -190,6 +212,5 @@ function toStored(row: RawRow): StoredRunSupplier {
     impactBand: row.impact_band,
     rating: row.rating,
     ratingBand: row.rating_band,
-    products: JSON.parse(row.products) as ProductImpact[],
   };
 }

@@ -43,7 +43,7 @@ export class RunResultsService {
     { items: RunSupplierDto[]; total: number } {
     this.readyRun(runId);
     const { rows, total } = this.results.page(runId, this.filterOf(user, query), query);
-    return { items: rows.map(withoutProducts), total };
+    return { items: rows, total };
   }
 
   /** Every row in scope, in rank order, with the run (the export). */
@@ -128,9 +128,4 @@ function failurePathsOf(graph: SupplyGraph, code: string):
     throw new AppError('internal_error', 500,
       `Could not trace the failure paths of ${code}: ${(error as Error).message}`);
   }
-}
-
-function withoutProducts(row: StoredRunSupplier): RunSupplierDto {
-  const { products: _products, ...rest } = row;
-  return rest;
 }
