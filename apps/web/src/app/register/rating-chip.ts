@@ -15,11 +15,10 @@ import { BAND_LABELS, BAND_MARKERS } from './register-labels';
     '[attr.aria-label]': 'label()',
     role: 'img',
   },
-  template: `<span aria-hidden="true">{{ marker() }}</span>
-    @if (rating() !== null) {
-      <span aria-hidden="true" class="kl-rating-chip__value">{{ rating() }}</span>
-    }
-    <span aria-hidden="true">{{ bandLabel() }}</span>`,
+  // &ngsp; keeps a real space between the parts, so copied or printed text reads "▲ 20 Critical".
+  template: `<span aria-hidden="true">{{ marker() }}</span>&ngsp;@if (rating() !== null) {
+      <span aria-hidden="true" class="kl-rating-chip__value">{{ rating() }}</span>&ngsp;
+    }<span aria-hidden="true">{{ bandLabel() }}</span>`,
   styles: `
     :host {
       display: inline-flex;
