@@ -44,7 +44,7 @@ const TIER_CHOICES = [1, 2, 3, 4, 5, 6] as const;
 
 /**
  * The single-point-of-failure ranking of one run: server-side sort on every column, filters,
- * paging and the heat-map cell, all kept in the URL; an export with the same filters; and what
+ * paging and the heat-map cell, all kept in the URL; an export of the whole ranking; and what
  * each column means. Rows link to the supplier's risk page.
  */
 @Component({
@@ -141,9 +141,7 @@ export class RunRanking {
   protected readonly page = pagedRows(toObservable(this.request), ({ runId, query }) =>
     this.runsApi.suppliers(runId, query),
   );
-  protected readonly exportUrl = computed(() =>
-    this.runsApi.exportUrl(this.runId(), this.query()),
-  );
+  protected readonly exportUrl = computed(() => this.runsApi.exportUrl(this.runId()));
 
   protected clearCell(): void {
     this.table.setFilters({ likelihood: undefined, impactBand: undefined });

@@ -72,12 +72,11 @@ export class RunsApi {
   }
 
   /**
-   * Where the ranking downloads as a workbook, with the table's filters. A plain link is
-   * enough: the browser sends the session cookie with a GET and saves the attachment.
+   * Where the whole ranking (every supplier of the run the person may see) downloads as a
+   * workbook. A plain link is enough: the browser sends the session cookie with a GET.
    */
-  exportUrl(id: number, query: RunSupplierQuery = {}): string {
-    const params = browseParams({ ...query, limit: undefined, offset: undefined }).toString();
-    return `${BASE}/${id}/export.xlsx${params ? `?${params}` : ''}`;
+  exportUrl(id: number): string {
+    return `${BASE}/${id}/export.xlsx`;
   }
 
   /** GET /api/settings/scoring: the impact band limits and rating band floors in force. */
