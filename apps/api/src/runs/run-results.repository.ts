@@ -1,13 +1,14 @@
 /**
- * Reads a run's stored results: the ranking page with its filters and sort, the heat-map
- * counts, the Pareto head, a supplier's row and history. SQL on the connection with cached
- * prepared statements per query shape, because the ranking is the hottest read of the product
+ * Reads a run's stored results: the sort and filter keys of every row (held in memory by
+ * run-ranking-index.ts), rows by id, a supplier's row and history. SQL on the connection with
+ * prepared statements kept per query, because the ranking is the hottest read of the product
  * (its latency is measured in tests/bench/measure-api.ts).
  */
 import type Database from 'better-sqlite3';
-import type { ListRunSuppliersQuery, RatingBand, RunSupplierDto } from '@keelson/contracts';
+import type { RatingBand, RunSupplierDto } from '@keelson/contracts';
 import { connectionOf, type KeelsonDatabase } from '@keelson/db';
 import type { ProductImpact } from '@keelson/supply-graph';
+import type { RankingKey } from './run-ranking-index';
 
 /** A stored result row as read back. */
 export interface StoredRunSupplier extends RunSupplierDto {
@@ -26,20 +27,6 @@ export interface HistoryRow {
   nexusIndex: number;
 }
 
-// Sort fields to columns: the names are constants, never user input.
-const SORT_COLUMNS: Record<ListRunSuppliersQuery['sort'], string> = {
-  rank: 'rank', code: 'code', name: 'name', tier: 'tier', country: 'country', region: 'region',
-  productsLost: 'products_lost_count', revenueExposedPerWeek: 'revenue_exposed_per_week',
-  revenueImpact: 'revenue_impact', timeToRecover: 'time_to_recover',
-  betweenness: 'betweenness', degree: 'degree', closeness: 'closeness',
-  eigenvector: 'eigenvector', pagerank: 'pagerank', nexusIndex: 'nexus_index',
-  likelihood: 'likelihood', impactBand: 'impact_band', rating: 'rating',
-};
-
-const PLANT_CONDITION = (count: number) =>
-  `EXISTS (SELECT 1 FROM run_supplier_plants p WHERE p.run_id = s.run_id AND p.code = s.code ` +
-  `AND p.plant_code IN (${Array.from({ length: count }, () => '?').join(', ')}))`;
-
 // Every column but `products` (a list does not show time to survive per product).
 const LIST_COLUMNS = ['rank', 'code', 'name', 'country', 'region', 'tier', 'products_lost',
   'plants', 'revenue_exposed_per_week', 'revenue_impact', 'time_to_recover',
@@ -57,10 +44,6 @@ interface RawRow {
   rating_band: RatingBand;
 }
 
-/** Filters of the ranking, with the plant scope already resolved. */
-export type RunSupplierFilter = Omit<ListRunSuppliersQuery, 'limit' | 'offset' | 'sort' |
-  'order' | 'plant'> & { plants: readonly string[] | null };
-
 /** Read access to run results. */
 export class RunResultsRepository {
   private readonly connection: Database.Database;
@@ -70,37 +53,45 @@ export class RunResultsRepository {
     this.connection = connectionOf(db);
   }
 
-  /**
-   * A page of the ranking and the number of rows matching the filters. Two steps: the sort
-   * runs over row ids and sort keys only, then the page's rows are read by id, so a sort over
-   * ten thousand rows never carries their JSON columns through the sorter.
-   */
-  page(runId: number, filter: RunSupplierFilter, page: Pick<ListRunSuppliersQuery,
-    'limit' | 'offset' | 'sort' | 'order'>): { rows: RunSupplierDto[]; total: number } {
-    const { where, params } = this.where(runId, filter);
-    const direction = page.order === 'desc' ? 'DESC' : 'ASC';
-    // NULL tiers sort last either way; rank breaks ties so pages never overlap.
-    const column = SORT_COLUMNS[page.sort];
-    const order = `s.${column} IS NULL, s.${column} ${direction}, s.rank ASC`;
-    const ids = this.prepare(`SELECT s.rowid FROM run_suppliers s WHERE ${where} ` +
-      `ORDER BY ${order} LIMIT ? OFFSET ?`).pluck().all(...params, page.limit, page.offset) as
-      number[];
-    const total = (this.prepare(`SELECT count(*) AS total FROM run_suppliers s WHERE ${where}`)
-      .get(...params) as { total: number }).total;
-    if (ids.length === 0) return { rows: [], total };
-    const found = this.prepare(`SELECT s.rowid AS row_id, ${LIST_COLUMNS} FROM run_suppliers s ` +
-      `WHERE s.rowid IN (SELECT value FROM json_each(?))`).all(JSON.stringify(ids)) as
-      (Omit<RawRow, 'products'> & { row_id: number })[];
-    const byId = new Map(found.map((row) => [row.row_id, row]));
-    const rows = ids.map((id) => toDto(byId.get(id)!));
-    return { rows, total };
+  /** The sort and filter keys of every row of a run, with the plants each touches. */
+  rankingKeys(runId: number): RankingKey[] {
+    const plants = new Map<string, string[]>();
+    const plantRows = this.prepare('SELECT code, plant_code FROM run_supplier_plants ' +
+      'WHERE run_id = ? ORDER BY code, plant_code').raw().all(runId) as [string, string][];
+    for (const [code, plant] of plantRows) {
+      const list = plants.get(code);
+      if (list) list.push(plant);
+      else plants.set(code, [plant]);
+    }
+    const rows = this.prepare('SELECT rowid AS rowId, rank, code, name, country, region, tier, ' +
+      'products_lost_count AS productsLost, revenue_exposed_per_week AS revenueExposedPerWeek, ' +
+      'revenue_impact AS revenueImpact, time_to_recover AS timeToRecover, ' +
+      'single_point_of_failure AS singlePointOfFailure, betweenness, degree, closeness, ' +
+      'eigenvector, pagerank, nexus_index AS nexusIndex, likelihood, impact_band AS impactBand, ' +
+      'rating, rating_band AS ratingBand FROM run_suppliers WHERE run_id = ?').all(runId) as
+      (Omit<RankingKey, 'plants' | 'singlePointOfFailure'> & { singlePointOfFailure: number })[];
+    return rows.map((row) => ({ ...row, singlePointOfFailure: row.singlePointOfFailure === 1,
+      plants: plants.get(row.code) ?? [] }));
   }
 
-  /** Every row matching the filters, in rank order (the export). */
-  all(runId: number, filter: RunSupplierFilter): StoredRunSupplier[] {
-    const { where, params } = this.where(runId, filter);
-    return (this.prepare(`SELECT * FROM run_suppliers s WHERE ${where} ORDER BY rank`)
-      .all(...params) as RawRow[]).map(toStored);
+  /** Rows by rowid, in the order of `ids`, without the per-product column. */
+  rowsByIds(ids: readonly number[]): RunSupplierDto[] {
+    if (ids.length === 0) return [];
+    const found = this.prepare(`SELECT s.rowid AS row_id, ${LIST_COLUMNS} FROM run_suppliers s ` +
+      'WHERE s.rowid IN (SELECT value FROM json_each(?))').all(JSON.stringify(ids)) as
+      (Omit<RawRow, 'products'> & { row_id: number })[];
+    const byId = new Map(found.map((row) => [row.row_id, row]));
+    return ids.map((id) => toDto(byId.get(id)!));
+  }
+
+  /** Rows by rowid with their products (the export), in the order of `ids`. */
+  fullRowsByIds(ids: readonly number[]): StoredRunSupplier[] {
+    if (ids.length === 0) return [];
+    const found = this.prepare('SELECT rowid AS row_id, * FROM run_suppliers ' +
+      'WHERE rowid IN (SELECT value FROM json_each(?))').all(JSON.stringify(ids)) as
+      (RawRow & { row_id: number })[];
+    const byId = new Map(found.map((row) => [row.row_id, row]));
+    return ids.map((id) => toStored(byId.get(id)!));
   }
 
   /** One supplier's row in a run. */
@@ -108,27 +99,6 @@ export class RunResultsRepository {
     const row = this.prepare('SELECT * FROM run_suppliers s WHERE run_id = ? AND code = ?')
       .get(runId, code) as RawRow | undefined;
     return row ? toStored(row) : undefined;
-  }
-
-  /** Counts per (likelihood, impact band) within the plant scope. */
-  heatMap(runId: number, plants: readonly string[] | null):
-    { likelihood: number; impactBand: number; count: number }[] {
-    const { where, params } = this.where(runId, { plants });
-    return this.prepare('SELECT likelihood, impact_band AS impactBand, count(*) AS count ' +
-      `FROM run_suppliers s WHERE ${where} GROUP BY likelihood, impact_band`)
-      .all(...params) as { likelihood: number; impactBand: number; count: number }[];
-  }
-
-  /** The first `limit` rows by revenue impact, and the sum over every row in scope. */
-  pareto(runId: number, plants: readonly string[] | null, limit: number):
-    { rows: { code: string; name: string; revenueImpact: number }[]; total: number } {
-    const { where, params } = this.where(runId, { plants });
-    const rows = this.prepare('SELECT code, name, revenue_impact AS revenueImpact FROM ' +
-      `run_suppliers s WHERE ${where} ORDER BY revenue_impact DESC, rank ASC LIMIT ?`)
-      .all(...params, limit) as { code: string; name: string; revenueImpact: number }[];
-    const total = (this.prepare('SELECT coalesce(sum(revenue_impact), 0) AS total FROM ' +
-      `run_suppliers s WHERE ${where}`).get(...params) as { total: number }).total;
-    return { rows, total };
   }
 
   /** The supplier's scores in every succeeded run, oldest first. */
@@ -145,32 +115,6 @@ export class RunResultsRepository {
     const row = this.prepare('SELECT id FROM register_entries WHERE supplier_code = ? ' +
       'ORDER BY id LIMIT 1').get(code) as { id: number } | undefined;
     return row?.id ?? null;
-  }
-
-  private where(runId: number, filter: Partial<RunSupplierFilter>):
-    { where: string; params: unknown[] } {
-    const parts = ['s.run_id = ?'];
-    const params: unknown[] = [runId];
-    const add = (sql: string, ...values: unknown[]) => {
-      parts.push(sql);
-      params.push(...values);
-    };
-    if (filter.q) {
-      const like = `%${filter.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-      add("(s.code LIKE ? ESCAPE '\\' OR s.name LIKE ? ESCAPE '\\')", like, like);
-    }
-    if (filter.tier !== undefined) add('s.tier = ?', filter.tier);
-    if (filter.country) add('s.country = ? COLLATE NOCASE', filter.country);
-    if (filter.region) add('s.region = ? COLLATE NOCASE', filter.region);
-    if (filter.ratingBand) add('s.rating_band = ?', filter.ratingBand);
-    if (filter.likelihood !== undefined) add('s.likelihood = ?', filter.likelihood);
-    if (filter.impactBand !== undefined) add('s.impact_band = ?', filter.impactBand);
-    if (filter.singlePointsOnly === 'true') add('s.single_point_of_failure = 1');
-    if (filter.plants) {
-      if (filter.plants.length === 0) add('0');
-      else add(PLANT_CONDITION(filter.plants.length), ...filter.plants);
-    }
-    return { where: parts.join(' AND '), params };
   }
 
   private prepare(sql: string): Database.Statement {

@@ -155,6 +155,16 @@ describe('plant managers', () => {
       .body as ParetoDto;
     expect(codes(pareto.items).every((code) => codes(north).includes(code))).toBe(true);
   });
+  it('see on a supplier page only the products and paths of their plants', async () => {
+    const both = rows.find((r) => r.plants.includes('P-NORTH') && r.plants.length > 1)!;
+    expect(both).toBeDefined();
+    const detail = (await getAs(t, `/api/analysis-runs/${runId}/suppliers/${both.code}`,
+      'plant_manager')).body as RunSupplierDetailDto;
+    const want = reference.suppliers.find((s) => s.code === both.code)!.products
+      .filter((p) => p.plantCode === 'P-NORTH');
+    expect(detail.products).toEqual(want);
+    expect(detail.failurePaths.map((p) => p.product)).toEqual(want.map((p) => p.code));
+  });
   it('do not see the page of a supplier that touches none of their plants', async () => {
     const elsewhere = rows.find((r) => r.plants.length > 0 && !r.plants.includes('P-NORTH'))!;
     const response = await getAs(t, `/api/analysis-runs/${runId}/suppliers/${elsewhere.code}`,

@@ -17,11 +17,8 @@ import { AppError, conflict, notFound } from '../http/app-error';
 import type { SessionUser } from '../http/auth-context';
 import { checkPlantFilter, effectivePlants, plantScopeOf } from '../network/plant-scope';
 import type { NetworkGraphCache } from './network-graph-cache';
-import {
-  RunResultsRepository,
-  type RunSupplierFilter,
-  type StoredRunSupplier,
-} from './run-results.repository';
+import { RunRankingCache, type RankingFilter } from './run-ranking-index';
+import { RunResultsRepository, type StoredRunSupplier } from './run-results.repository';
 import { toProductPath } from './scenario-paths';
 import { RunsRepository, type RunRecord } from './runs.repository';
 
@@ -32,25 +29,30 @@ export const PARETO_SIZE = 200;
 export class RunResultsService {
   private readonly results: RunResultsRepository;
   private readonly runs: RunsRepository;
+  private readonly rankings: RunRankingCache;
 
   constructor(db: KeelsonDatabase, private readonly graphs: NetworkGraphCache) {
     this.results = new RunResultsRepository(db);
     this.runs = new RunsRepository(db);
+    this.rankings = new RunRankingCache((runId) => this.results.rankingKeys(runId));
   }
 
   /** A page of the ranking; 403 `plant_forbidden` for another plant's filter. */
   suppliers(user: SessionUser, runId: number, query: ListRunSuppliersQuery):
     { items: RunSupplierDto[]; total: number } {
     this.readyRun(runId);
-    const { rows, total } = this.results.page(runId, this.filterOf(user, query), query);
-    return { items: rows, total };
+    const { sort, order, limit, offset } = query;
+    const matches = this.rankings.get(runId).select(this.filterOf(user, query), sort, order);
+    const page = matches.slice(offset, offset + limit).map((key) => key.rowId);
+    return { items: this.results.rowsByIds(page), total: matches.length };
   }
 
   /** Every row in scope, in rank order, with the run (the export). */
   everySupplier(user: SessionUser, runId: number):
     { run: RunRecord; rows: StoredRunSupplier[] } {
     const run = this.readyRun(runId);
-    return { run, rows: this.results.all(runId, { plants: plantScopeOf(user) }) };
+    const keys = this.rankings.get(runId).select({ plants: plantScopeOf(user) });
+    return { run, rows: this.results.fullRowsByIds(keys.map((key) => key.rowId)) };
   }
 
   /** One supplier's risk page; 404 when it is not in the run or not in the user's scope. */
@@ -65,11 +67,15 @@ export class RunResultsService {
     }
     const { graph } = this.graphs.get(run.networkVersionId);
     const paths = row.productsLost.length > 0 ? failurePathsOf(graph, code) : [];
+    // A plant manager sees the row as computed, but only their plants' products and paths.
+    const products = row.products.filter((p) => scope === null || scope.includes(p.plantCode));
+    const shown = new Set(products.map((p) => p.code));
     return {
       ...row,
+      products,
       runId,
       networkVersionId: run.networkVersionId,
-      failurePaths: paths,
+      failurePaths: paths.filter((path) => shown.has(path.product)),
       history: this.results.history(code),
       registerEntryId: this.results.registerEntryId(code),
     };
@@ -80,9 +86,9 @@ export class RunResultsService {
     this.readyRun(runId);
     const cells = Array.from({ length: 5 }, () => [0, 0, 0, 0, 0]);
     let total = 0;
-    for (const cell of this.results.heatMap(runId, plantScopeOf(user))) {
-      cells[cell.likelihood - 1]![cell.impactBand - 1] = cell.count;
-      total += cell.count;
+    for (const key of this.rankings.get(runId).select({ plants: plantScopeOf(user) })) {
+      cells[key.likelihood - 1]![key.impactBand - 1]!++;
+      total++;
     }
     return { cells, total };
   }
@@ -90,11 +96,15 @@ export class RunResultsService {
   /** The first {@link PARETO_SIZE} suppliers by revenue impact and their running share. */
   pareto(user: SessionUser, runId: number): ParetoDto {
     this.readyRun(runId);
-    const { rows, total } = this.results.pareto(runId, plantScopeOf(user), PARETO_SIZE);
+    const keys = this.rankings.get(runId).select({ plants: plantScopeOf(user) },
+      'revenueImpact', 'desc');
+    let total = 0;
+    for (const key of keys) total += key.revenueImpact;
     let running = 0;
-    const items = rows.map((row) => {
-      running += row.revenueImpact;
-      return { ...row, cumulativeShare: total > 0 ? Math.min(1, running / total) : 0 };
+    const items = keys.slice(0, PARETO_SIZE).map(({ code, name, revenueImpact }) => {
+      running += revenueImpact;
+      return { code, name, revenueImpact,
+        cumulativeShare: total > 0 ? Math.min(1, running / total) : 0 };
     });
     return { items, totalRevenueImpact: total };
   }
@@ -110,7 +120,7 @@ export class RunResultsService {
     return run;
   }
 
-  private filterOf(user: SessionUser, query: ListRunSuppliersQuery): RunSupplierFilter {
+  private filterOf(user: SessionUser, query: ListRunSuppliersQuery): RankingFilter {
     const scope = plantScopeOf(user);
     checkPlantFilter(scope, query.plant);
     const { limit: _limit, offset: _offset, sort: _sort, order: _order, plant, ...filters } =
