@@ -197,7 +197,9 @@ describe('ScoringSettingsPage', () => {
     // 16 adds 4x4.
     expect(criticalCells()).toBe(4);
     expect(words(root.querySelector('figcaption')!)).toContain('4 critical cells');
-    const cell = root.querySelector<HTMLElement>('.scoring__matrix tr:nth-child(2) td:nth-child(5)');
+    // Row 2 is likelihood 4; cell 5 (after the row header) is impact band 4.
+    const row = root.querySelectorAll('.scoring__matrix tbody tr')[1]!;
+    const cell = row.querySelectorAll<HTMLElement>('td')[3];
     expect(cell?.getAttribute('data-band')).toBe('critical');
     expect(words(cell!)).toBe('▲ 16');
   });

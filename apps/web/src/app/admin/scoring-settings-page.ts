@@ -196,7 +196,9 @@ export class ScoringSettingsPage {
     const settings = this.settings();
     const body: ScoringSettings = {
       ...settings,
-      impactBandLimits: settings.impactBandLimits.map(shareOf) as ScoringSettings['impactBandLimits'],
+      impactBandLimits: settings.impactBandLimits.map(
+        shareOf,
+      ) as ScoringSettings['impactBandLimits'],
     };
     this.isSaving.set(true);
     this.errorMessage.set(null);
@@ -242,7 +244,9 @@ export class ScoringSettingsPage {
     if (!(error instanceof HttpErrorResponse) || !isApiErrorBody(error.error)) {
       return;
     }
-    const details = error.error.error.details as { issues?: { path?: unknown; message?: unknown }[] };
+    const details = error.error.error.details as
+      | { issues?: { path?: unknown; message?: unknown }[] }
+      | undefined;
     const groups: Record<string, string> = {};
     for (const issue of details?.issues ?? []) {
       if (typeof issue.path !== 'string' || typeof issue.message !== 'string') continue;

@@ -271,8 +271,8 @@ describe('RegisterPage', () => {
     });
     await settle();
     const dialog = document.querySelector<HTMLElement>('mat-dialog-container')!;
-    dialog.querySelector<HTMLElement>('mat-select[formcontrolname="ownerId"] .mat-mdc-select-trigger')!
-      .click();
+    const owner = 'mat-select[formcontrolname="ownerId"] .mat-mdc-select-trigger';
+    dialog.querySelector<HTMLElement>(owner)!.click();
     await settle();
     expect([...document.querySelectorAll('mat-option')].map(words)).toEqual([
       'Nobody yet',
