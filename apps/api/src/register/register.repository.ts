@@ -91,26 +91,27 @@ export class RegisterRepository {
   plantsOf(entryIds: readonly number[]): Map<number, string[]> {
     const plants = new Map<number, string[]>(entryIds.map((id) => [id, []]));
     if (entryIds.length === 0) return plants;
-    const rows = this.db.select().from(registerEntryPlants)
-      .where(inArray(registerEntryPlants.entryId, [...entryIds]))
-      .orderBy(asc(registerEntryPlants.plantCode)).all();
-    for (const row of rows) plants.get(row.entryId)?.push(row.plantCode);
+    for (const ids of chunksOf(entryIds)) {
+      const rows = this.db.select().from(registerEntryPlants)
+        .where(inArray(registerEntryPlants.entryId, ids))
+        .orderBy(asc(registerEntryPlants.plantCode)).all();
+      for (const row of rows) plants.get(row.entryId)?.push(row.plantCode);
+    }
     return plants;
   }
 
   /** The override history of entries, oldest first, with who made each one. */
   overridesOf(entryIds: readonly number[]): LikelihoodOverrideRecord[] {
-    if (entryIds.length === 0) return [];
-    return this.db
+    return chunksOf(entryIds).flatMap((ids) => this.db
       .select({ id: likelihoodOverrides.id, entryId: likelihoodOverrides.entryId,
         likelihood: likelihoodOverrides.likelihood, previous: likelihoodOverrides.previous,
         reason: likelihoodOverrides.reason, userId: likelihoodOverrides.userId,
         userName: users.name, createdAt: likelihoodOverrides.createdAt })
       .from(likelihoodOverrides)
       .leftJoin(users, eq(users.id, likelihoodOverrides.userId))
-      .where(inArray(likelihoodOverrides.entryId, [...entryIds]))
+      .where(inArray(likelihoodOverrides.entryId, ids))
       .orderBy(asc(likelihoodOverrides.id))
-      .all();
+      .all());
   }
 
   /** Inserts an entry with its plants and returns its id. */
@@ -214,6 +215,18 @@ export class RegisterRepository {
     if (filter.ownerId) conditions.push(eq(e.ownerId, filter.ownerId));
     return conditions.length > 0 ? and(...conditions) : undefined;
   }
+}
+
+// Well below SQLite's limit of bound parameters per statement (32 766).
+const ID_CHUNK = 10_000;
+
+/** `ids` in slices of at most {@link ID_CHUNK}, so an export of any size binds few parameters. */
+function chunksOf(ids: readonly number[]): number[][] {
+  const chunks: number[][] = [];
+  for (let start = 0; start < ids.length; start += ID_CHUNK) {
+    chunks.push(ids.slice(start, start + ID_CHUNK));
+  }
+  return chunks;
 }
 
 const entryColumns = {
