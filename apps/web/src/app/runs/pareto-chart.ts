@@ -18,6 +18,11 @@ import { BaseChartDirective, provideCharts } from 'ng2-charts';
 /** Suppliers the chart shows, largest revenue impact first. */
 export const PARETO_TOP = 30;
 
+// Chart.js needs concrete colours (the theme's light-dark() tokens do not parse); these two
+// read on both the light and the dark surface.
+const BAR_COLOUR = 'rgba(38, 110, 125, 0.8)';
+const LINE_COLOUR = '#c0620a';
+
 type ParetoConfig = ChartConfiguration<'bar' | 'line', number[], string>;
 
 /**
@@ -88,6 +93,7 @@ export class ParetoChart {
             label: 'Revenue impact',
             data: items.map((item) => item.revenueImpact),
             yAxisID: 'impact',
+            backgroundColor: BAR_COLOUR,
             order: 2,
           },
           {
@@ -95,6 +101,9 @@ export class ParetoChart {
             label: 'Cumulative share (%)',
             data: items.map((item) => Math.round(item.cumulativeShare * 1000) / 10),
             yAxisID: 'share',
+            borderColor: LINE_COLOUR,
+            backgroundColor: LINE_COLOUR,
+            pointRadius: 2,
             order: 1,
           },
         ],
