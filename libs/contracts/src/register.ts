@@ -115,3 +115,8 @@ export type ExportRegisterQuery = z.infer<typeof exportRegisterQuerySchema>;
 
 /** Name of the export's sheet that explains the scores. */
 export const REGISTER_ABOUT_SHEET = 'About these numbers';
+
+/** GET /api/register/owners answer: the active users an entry can be given to, by name. */
+export interface RegisterOwnersDto {
+  items: { id: number; name: string; role: string }[];
+}

@@ -180,6 +180,12 @@ export class RegisterRepository {
       .from(users).where(eq(users.id, id)).get();
   }
 
+  /** Every active user, by name. */
+  activeUsers(): { id: number; name: string; role: string }[] {
+    return this.db.select({ id: users.id, name: users.name, role: users.role }).from(users)
+      .where(eq(users.isActive, true)).orderBy(asc(users.name), asc(users.id)).all();
+  }
+
   /** Runs `work` in one transaction (better-sqlite3 transactions are synchronous). */
   transaction<T>(work: () => T): T {
     return this.db.transaction(() => work());

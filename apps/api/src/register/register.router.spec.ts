@@ -105,6 +105,22 @@ describe('GET /api/register/:id', () => {
   });
 });
 
+describe('GET /api/register/owners', () => {
+  it('lists active users for those who assign owners, and refuses the others', async () => {
+    const viewerId = t.userId(ACCOUNT_OF_ROLE.viewer);
+    t.database.sqlite.prepare('update users set is_active = 0 where id = ?').run(viewerId);
+    const response = await request(t.app).get('/api/register/owners').set(as('risk_manager'));
+    t.database.sqlite.prepare('update users set is_active = 1 where id = ?').run(viewerId);
+    expect(response.status).toBe(200);
+    const names = response.body.items.map((owner: { name: string }) => owner.name);
+    expect(names).toEqual(['Alma Reyes', 'Bruno Keller', 'Pia Lindqvist', 'Rania Okafor',
+      'Sergio Marin']);
+    for (const role of ['viewer', 'buyer', 'plant_manager'] as const) {
+      expect((await request(t.app).get('/api/register/owners').set(as(role))).status).toBe(403);
+    }
+  });
+});
+
 describe('writing the register', () => {
   it('refuses viewers, buyers and plant managers with 403', async () => {
     const id = idOf['S-2-SHARED-A'];

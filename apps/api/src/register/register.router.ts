@@ -57,6 +57,15 @@ export function createRegisterRouter(deps: RegisterRouterDeps): Router {
   });
   route(router, {
     method: 'get',
+    path: '/owners',
+    // Those who assign owners; the user list itself is for administrators only.
+    roles: WRITERS,
+    handler: (_req, res) => {
+      res.json(register.owners());
+    },
+  });
+  route(router, {
+    method: 'get',
     path: '/:id',
     roles: SIGNED_IN,
     handler: (req, res) => {

@@ -11,6 +11,7 @@ import type {
   RegisterEntryDetailDto,
   RegisterEntryDto,
   RegisterListDto,
+  RegisterOwnersDto,
   UpdateRegisterEntryInput,
 } from '@keelson/contracts';
 import type { KeelsonDatabase } from '@keelson/db';
@@ -111,6 +112,11 @@ export class RegisterService {
       notes: input.notes ?? '', createdBy: user.id, createdAt: stamp, updatedAt: stamp,
     }, scored.plants));
     return this.detail(user, id);
+  }
+
+  /** The users an entry may be given to (active ones), for the owner picker. */
+  owners(): RegisterOwnersDto {
+    return { items: this.deps.repository.activeUsers() };
   }
 
   /** Changes the title, owner (an active user), status or notes of an entry. */
