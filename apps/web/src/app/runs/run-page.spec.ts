@@ -14,7 +14,8 @@ import { SCORING_DEFAULTS } from '@keelson/scoring';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { COUNTRIES, PLANTS } from '../network/network-fixtures';
 import { RunPage } from './run-page';
-import { rankingRow, runRow } from './runs-fixtures';
+import { EVENT_SOURCE_FACTORY } from './run-progress';
+import { FakeEventSource, fakeEventSourceFactory, rankingRow, runRow } from './runs-fixtures';
 
 @Component({ template: 'supplier risk' })
 class SupplierRiskStub {}
@@ -82,6 +83,7 @@ describe('RunPage', () => {
   }
 
   beforeEach(() => {
+    FakeEventSource.reset();
     TestBed.configureTestingModule({
       providers: [
         provideZonelessChangeDetection(),
@@ -91,6 +93,7 @@ describe('RunPage', () => {
         ]),
         provideHttpClient(),
         provideHttpClientTesting(),
+        { provide: EVENT_SOURCE_FACTORY, useValue: fakeEventSourceFactory },
         { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
       ],
     });
@@ -253,7 +256,47 @@ describe('RunPage', () => {
     backend.expectOne('/api/settings/scoring').flush(SCORING_DEFAULTS);
     await settle();
     expect(root.textContent).toContain('The engine ran out of memory.');
-    expect(root.textContent).toContain('This run has no results yet.');
+    expect(root.textContent).toContain('This run has no results;');
     expect(root.querySelector('kl-run-ranking')).toBeNull();
+  });
+
+  it('follows a running run and shows its results once it succeeds', async () => {
+    harness = await RouterTestingHarness.create('/runs/5');
+    root = harness.routeNativeElement!;
+    await settle();
+    const notReady = {
+      error: { code: 'run_not_ready', message: 'Run 5 has not finished.' },
+    };
+    backend.expectOne('/api/analysis-runs/5').flush(
+      runRow(5, { status: 'running', progress: 0.25, stage: 'single removals', finishedAt: null }),
+    );
+    backend.expectOne('/api/analysis-runs/5/heat-map').flush(notReady,
+      { status: 409, statusText: 'Conflict' });
+    backend.expectOne('/api/analysis-runs/5/pareto').flush(notReady,
+      { status: 409, statusText: 'Conflict' });
+    backend.expectOne('/api/settings/scoring').flush(SCORING_DEFAULTS);
+    await settle();
+    expect(root.querySelector('[role="status"]')?.textContent).toContain(
+      'Working on: single removals · 25%',
+    );
+    const stream = FakeEventSource.opened[0]!;
+    expect(stream.url).toBe('/api/analysis-runs/5/events');
+    stream.progress({ id: 5, status: 'running', progress: 0.6, stage: 'betweenness',
+      error: null });
+    await settle();
+    expect(root.querySelector('mat-progress-bar')?.getAttribute('aria-valuenow')).toBe('60');
+
+    stream.progress({ id: 5, status: 'succeeded', progress: 1, stage: null, error: null });
+    await settle();
+    expect(stream.isClosed).toBe(true);
+    backend.expectOne('/api/analysis-runs/5').flush(runRow(5));
+    backend.expectOne('/api/analysis-runs/5/heat-map').flush(HEAT_MAP);
+    backend.expectOne('/api/analysis-runs/5/pareto').flush({ items: [], totalRevenueImpact: 0 });
+    await settle();
+    backend.expectOne('/api/plants').flush({ items: PLANTS });
+    backend.expectOne('/api/countries').flush(COUNTRIES);
+    expectRanking().flush({ items: ROWS, total: 148 });
+    await settle();
+    expect(root.querySelectorAll('tr.mat-mdc-row')).toHaveLength(2);
   });
 });

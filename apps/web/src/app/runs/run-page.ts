@@ -1,18 +1,34 @@
 import { DatePipe, DecimalPipe, PercentPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatIcon } from '@angular/material/icon';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import { MatTab, MatTabContent, MatTabGroup } from '@angular/material/tabs';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
-import type { AnalysisRunDto, HeatMapDto, ParetoDto } from '@keelson/contracts';
+import type {
+  AnalysisRunDto,
+  HeatMapDto,
+  ParetoDto,
+  RunProgressEvent,
+} from '@keelson/contracts';
 import { SCORING_DEFAULTS, type ScoringSettings } from '@keelson/scoring';
-import { type Observable, catchError, map, of, switchMap } from 'rxjs';
+import {
+  BehaviorSubject,
+  type Observable,
+  catchError,
+  combineLatest,
+  distinctUntilChanged,
+  filter,
+  map,
+  of,
+  switchMap,
+} from 'rxjs';
 import { apiErrorMessage } from '../shared/api-error-message';
 import { HeatMap, type HeatMapCell } from './heat-map';
 import { ParetoChart } from './pareto-chart';
+import { isFinished, RunProgress } from './run-progress';
 import { RunRanking } from './run-ranking';
-import { runDuration, statusClass, statusLabel } from './run-labels';
+import { runDuration, stageLabel, statusClass, statusLabel } from './run-labels';
 import { RunsApi } from './runs-api';
 import { ScoreAssumptions } from './score-assumptions';
 
@@ -27,7 +43,8 @@ function loaded<T>(source: Observable<T>): Observable<Loaded<T>> {
 
 /**
  * One analysis run: a summary line, then its ranking, heat map and Pareto chart in tabs.
- * Choosing a heat-map cell narrows the ranking to it (in the URL) and shows the ranking.
+ * Choosing a heat-map cell narrows the ranking to it (in the URL) and shows the ranking. A run
+ * still queued or running shows its progress and loads its results once it succeeds.
  */
 @Component({
   selector: 'kl-run-page',
@@ -62,21 +79,23 @@ export class RunPage {
   );
   private readonly filters = toSignal(this.route.queryParamMap, { requireSync: true });
   protected readonly tab = signal(0);
+  /** Asks for the run and its results again (after it finishes while open). */
+  private readonly reloads = new BehaviorSubject<void>(undefined);
+  private readonly loads = combineLatest([
+    this.route.paramMap.pipe(map((params) => Number(params.get('runId')))),
+    this.reloads,
+  ]).pipe(map(([id]) => id));
   protected readonly run = toSignal(
-    this.route.paramMap.pipe(
-      switchMap((params) => loaded(this.runsApi.get(Number(params.get('runId'))))),
-    ),
+    this.loads.pipe(switchMap((id) => loaded(this.runsApi.get(id)))),
   );
   protected readonly heatMap = toSignal(
-    this.route.paramMap.pipe(
-      switchMap((params) => loaded<HeatMapDto>(this.runsApi.heatMap(Number(params.get('runId'))))),
-    ),
+    this.loads.pipe(switchMap((id) => loaded<HeatMapDto>(this.runsApi.heatMap(id)))),
   );
   protected readonly pareto = toSignal(
-    this.route.paramMap.pipe(
-      switchMap((params) => loaded<ParetoDto>(this.runsApi.pareto(Number(params.get('runId'))))),
-    ),
+    this.loads.pipe(switchMap((id) => loaded<ParetoDto>(this.runsApi.pareto(id)))),
   );
+  /** The live progress of a run that had not finished when it was read. */
+  protected readonly progress = signal<RunProgressEvent | null>(null);
   /** The settings in force; the documented defaults if they cannot be read. */
   protected readonly settings = toSignal(
     this.runsApi.scoringSettings().pipe(catchError(() => of<ScoringSettings>(SCORING_DEFAULTS))),
@@ -89,6 +108,25 @@ export class RunPage {
   protected readonly statusLabel = statusLabel;
   protected readonly statusClass = statusClass;
   protected readonly duration = runDuration;
+  protected readonly stageLabel = stageLabel;
+
+  constructor() {
+    const runProgress = inject(RunProgress);
+    toObservable(this.runValue)
+      .pipe(
+        filter((run): run is AnalysisRunDto => run !== null && !isFinished(run.status)),
+        map((run) => run.id),
+        distinctUntilChanged(),
+        switchMap((id) => runProgress.watch(id)),
+        takeUntilDestroyed(),
+      )
+      .subscribe((event) => {
+        this.progress.set(event);
+        if (isFinished(event.status)) {
+          this.reloads.next();
+        }
+      });
+  }
 
   /** The run once read, or null while loading or after an error. */
   protected readonly runValue = computed((): AnalysisRunDto | null => {
