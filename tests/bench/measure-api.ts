@@ -8,7 +8,8 @@
  *    (seeded with the demo accounts, whose Bearer tokens are signed like a login's).
  * 2. Runs one analysis through the run service (worker thread, results stored in one
  *    transaction with the register sync) and times it.
- * 3. Starts the app (`createApp`) on 127.0.0.1 and measures each endpoint with autocannon for
+ * 3. Starts the app (`createApp`) on 127.0.0.1 in a child process (so the load generator
+ *    does not share the server's event loop) and measures each endpoint with autocannon for
  *    `--seconds` with `--connections` concurrent connections: the ranking sorted by revenue
  *    impact, the same with `ratingBand=high`, and the register's first page (null when the
  *    register answers 404). Latency percentiles are computed from every response's time;
@@ -18,10 +19,13 @@
  */
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import { spawn } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { createInterface } from 'node:readline';
+import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { importBatches, openDatabase } from '@keelson/db';
 import { generateTieredNetwork } from '@keelson/supply-graph/testing';
@@ -55,6 +59,8 @@ const { values } = parseArgs({
     suppliers: { type: 'string', default: '10000' },
     seconds: { type: 'string', default: '10' },
     connections: { type: 'string', default: '10' },
+    serve: { type: 'string' },
+    user: { type: 'string' },
   },
 });
 const SEED = 20240601;
@@ -62,87 +68,93 @@ const suppliers = Number(values.suppliers);
 const seconds = Number(values.seconds);
 const connections = Number(values.connections);
 
-const folder = mkdtempSync(join(tmpdir(), 'keelson-bench-api-'));
-const databasePath = join(folder, 'keelson.db');
 const round = (value: number, places = 2) => Math.round(value * 10 ** places) / 10 ** places;
 
-try {
-  const database = openDatabase(databasePath);
-  await seedDemoWorkspace(database.db, { hashPassword: createPasswordHasher(4).hash });
-  const riskManager = database.sqlite.prepare("select id from users where role = 'risk_manager'")
-    .get() as { id: number };
+if (values.serve !== undefined) {
+  await serve(values.serve, Number(values.user));
+} else {
+  await measureAll();
+}
 
-  let started = performance.now();
-  const model = generateTieredNetwork({ seed: SEED, suppliers });
-  const createdAt = new Date().toISOString();
-  const versionId = database.db.transaction((tx) => {
-    const batchId = tx.insert(importBatches).values({
-      status: 'committed', fileName: `bench-${suppliers}.xlsx`, fileSize: 0,
-      sha256: '00'.repeat(32), format: 'xlsx', sheets: [], counts: {}, errors: [],
-      warnings: [], errorCount: 0, warningCount: 0, createdBy: riskManager.id, createdAt,
-      committedAt: createdAt,
-    }).returning({ id: importBatches.id }).get().id;
-    return insertNetworkVersion(tx, model, { importBatchId: batchId, label: 'Bench network',
-      createdBy: riskManager.id, createdAt, previousVersionId: null, changes: {} }).id;
-  });
-  const storeSeconds = round((performance.now() - started) / 1000);
+/** Parent mode: builds the network and the run, serves them, measures, prints the line. */
+async function measureAll(): Promise<void> {
+  const folder = mkdtempSync(join(tmpdir(), 'keelson-bench-api-'));
+  const databasePath = join(folder, 'keelson.db');
+  try {
+    const database = openDatabase(databasePath);
+    await seedDemoWorkspace(database.db, { hashPassword: createPasswordHasher(4).hash });
+    const riskManager = database.sqlite.prepare("select id from users where role = 'risk_manager'")
+      .get() as { id: number };
 
-  started = performance.now();
-  const runs = new RunsService({ db: database.db, now: () => new Date() });
-  const queued = runs.start(null, { networkVersionId: versionId, label: 'Bench run' });
-  const run = await runs.settled(queued.id);
-  if (run.status !== 'succeeded') throw new Error(`The bench run ${run.status}: ${run.error}`);
-  const runSeconds = round((performance.now() - started) / 1000);
-  database.close();
+    let started = performance.now();
+    const model = generateTieredNetwork({ seed: SEED, suppliers });
+    const createdAt = new Date().toISOString();
+    const versionId = database.db.transaction((tx) => {
+      const batchId = tx.insert(importBatches).values({
+        status: 'committed', fileName: `bench-${suppliers}.xlsx`, fileSize: 0,
+        sha256: '00'.repeat(32), format: 'xlsx', sheets: [], counts: {}, errors: [],
+        warnings: [], errorCount: 0, warningCount: 0, createdBy: riskManager.id, createdAt,
+        committedAt: createdAt,
+      }).returning({ id: importBatches.id }).get().id;
+      return insertNetworkVersion(tx, model, { importBatchId: batchId, label: 'Bench network',
+        createdBy: riskManager.id, createdAt, previousVersionId: null, changes: {} }).id;
+    });
+    const storeSeconds = round((performance.now() - started) / 1000);
 
-  const config = loadConfig({}, { mode: 'test', databasePath, port: 0, smtpUrl: null,
-    publicUrl: 'http://127.0.0.1', webRoot: '/nonexistent/keelson-web-build' });
-  const served = openDatabase(databasePath);
-  const app = createApp({ config, db: served.db, logger: createLogger('silent'),
-    mailer: createSmtpMailer({ host: '127.0.0.1', port: 9 }, config.mailFrom) });
-  const server = await new Promise<Server>((resolve) => {
-    const listening = app.listen(0, '127.0.0.1', () => resolve(listening));
-  });
-  const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-  const token = new SessionTokens(config.jwtSecret).sign(riskManager.id, 'risk_manager');
-  const headers = { authorization: `Bearer ${token}` };
+    started = performance.now();
+    const runs = new RunsService({ db: database.db, now: () => new Date() });
+    const queued = runs.start(null, { networkVersionId: versionId, label: 'Bench run' });
+    const run = await runs.settled(queued.id);
+    if (run.status !== 'succeeded') throw new Error(`The bench run ${run.status}: ${run.error}`);
+    const runSeconds = round((performance.now() - started) / 1000);
+    database.close();
 
-  const endpoints = {
-    ranking: `/api/analysis-runs/${run.id}/suppliers?limit=50&sort=revenueImpact&order=desc`,
-    rankingFiltered: `/api/analysis-runs/${run.id}/suppliers?limit=50&sort=revenueImpact` +
-      '&order=desc&ratingBand=high',
-    register: '/api/register?limit=50',
-  };
-  const measured: Record<string, unknown> = {};
-  for (const [name, path] of Object.entries(endpoints)) {
-    const probeStarted = performance.now();
-    const probe = await fetch(base + path, { headers });
-    await probe.arrayBuffer();
-    // The first read of a run also loads its sort keys into memory (run-ranking-index.ts).
-    const firstRequestMs = round(performance.now() - probeStarted);
-    if (probe.status === 404) {
-      measured[name] = null;
-      continue;
+    // The server runs in its own process, so that autocannon does not share its event loop.
+    const server = spawn(process.execPath, ['--import', 'tsx', fileURLToPath(import.meta.url),
+      '--serve', databasePath, '--user', String(riskManager.id)],
+    { stdio: ['ignore', 'pipe', 'inherit'] });
+    const { port, token } = await new Promise<{ port: number; token: string }>((resolve) => {
+      createInterface({ input: server.stdout! }).once('line', (line) => resolve(JSON.parse(line)));
+    });
+    const base = `http://127.0.0.1:${port}`;
+    const headers = { authorization: `Bearer ${token}` };
+
+    const endpoints = {
+      ranking: `/api/analysis-runs/${run.id}/suppliers?limit=50&sort=revenueImpact&order=desc`,
+      rankingFiltered: `/api/analysis-runs/${run.id}/suppliers?limit=50&sort=revenueImpact` +
+        '&order=desc&ratingBand=high',
+      register: '/api/register?limit=50',
+    };
+    const measured: Record<string, unknown> = {};
+    for (const [name, path] of Object.entries(endpoints)) {
+      const probeStarted = performance.now();
+      const probe = await fetch(base + path, { headers });
+      await probe.arrayBuffer();
+      // The first read of a run also loads its sort keys into memory (run-ranking-index.ts).
+      const firstRequestMs = round(performance.now() - probeStarted);
+      if (probe.status === 404) {
+        measured[name] = null;
+        continue;
+      }
+      if (probe.status !== 200) throw new Error(`${path} answered ${probe.status}`);
+      measured[name] = { firstRequestMs, ...(await measure(base + path, headers)) };
     }
-    if (probe.status !== 200) throw new Error(`${path} answered ${probe.status}`);
-    measured[name] = { firstRequestMs, ...(await measure(base + path, headers)) };
-  }
-  await new Promise<void>((resolve) => server.close(() => resolve()));
-  served.close();
+    server.kill('SIGTERM');
 
-  process.stdout.write(`${JSON.stringify({
-    suppliers,
-    seed: SEED,
-    sourcingRows: model.sourcing.length,
-    storeSeconds,
-    runSeconds,
-    connections,
-    seconds,
-    cores: cpus().length,
-    endpoints: measured,
-  })}\n`);
-} finally {
-  rmSync(folder, { recursive: true, force: true });
+    process.stdout.write(`${JSON.stringify({
+      suppliers,
+      seed: SEED,
+      sourcingRows: model.sourcing.length,
+      storeSeconds,
+      runSeconds,
+      connections,
+      seconds,
+      cores: cpus().length,
+      endpoints: measured,
+    })}\n`);
+  } finally {
+    rmSync(folder, { recursive: true, force: true });
+}
 }
 
 /** Latency percentiles (ms, from every response) and requests per second of one URL. */
@@ -163,4 +175,24 @@ async function measure(url: string, headers: Record<string, string>) {
     non2xx: result.non2xx,
     errors: result.errors,
   };
+}
+
+/** Child mode: serves the app on the database and prints `{port, token}` as one line. */
+async function serve(databasePath: string, userId: number): Promise<void> {
+  const config = loadConfig({}, { mode: 'test', databasePath, port: 0, smtpUrl: null,
+    publicUrl: 'http://127.0.0.1', webRoot: '/nonexistent/keelson-web-build' });
+  const served = openDatabase(databasePath);
+  const app = createApp({ config, db: served.db, logger: createLogger('silent'),
+    mailer: createSmtpMailer({ host: '127.0.0.1', port: 9 }, config.mailFrom) });
+  const server = await new Promise<Server>((resolve) => {
+    const listening = app.listen(0, '127.0.0.1', () => resolve(listening));
+  });
+  const port = (server.address() as AddressInfo).port;
+  const token = new SessionTokens(config.jwtSecret).sign(userId, 'risk_manager');
+  process.stdout.write(`${JSON.stringify({ port, token })}\n`);
+  process.once('SIGTERM', () => {
+    server.close();
+    served.close();
+    process.exit(0);
+  });
 }
