@@ -111,7 +111,7 @@ describe('RegisterPage', () => {
     expect(cells[0]!.slice(0, 9)).toEqual([
       '12',
       'Single source for cast housings (12)',
-      'S-2-SHARED-A · Brenna Foundry',
+      'S-2-SHARED-A Brenna Foundry',
       'P-NORTH',
       'Rania Okafor',
       'Open',
