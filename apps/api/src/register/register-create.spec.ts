@@ -1,6 +1,9 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { fewestAlternativesBySupplier } from '@keelson/scoring';
+import { readNetworkModel } from '../network/network-store';
 import { ACCOUNT_OF_ROLE, createTestApp, type TestApp } from '../testing/test-app';
+import { RegisterRepository } from './register.repository';
 import { seedRun } from './register-test-runs';
 
 let t: TestApp;
@@ -73,5 +76,20 @@ describe('POST /api/register', () => {
     const owner = await create({ supplierCode: 'S-1-002', title: 'Owned', ownerId: 4242 });
     expect(owner.status).toBe(400);
     expect(owner.body.error.details.issues[0].path).toBe('body.ownerId');
+  });
+});
+
+describe('RegisterRepository.fewestAlternatives', () => {
+  it('agrees with fewestAlternativesBySupplier of @keelson/scoring on every demo supplier', () => {
+    const model = readNetworkModel(t.database.db, 1)!;
+    const expected = fewestAlternativesBySupplier(model);
+    const repository = new RegisterRepository(t.database.db);
+    const actual = new Map(model.suppliers.map((supplier) =>
+      [supplier.code, repository.fewestAlternatives(1, supplier.code)]));
+    expect(actual).toEqual(expected);
+    // The demo has sole sources (0) as well as suppliers with alternatives.
+    const values = new Set(actual.values());
+    expect(values.has(0)).toBe(true);
+    expect([...values].some((value) => value !== null && value > 0)).toBe(true);
   });
 });

@@ -165,6 +165,22 @@ export class RegisterRepository {
       .orderBy(asc(networkSupplierPlants.plantCode)).all().map((row) => row.plantCode);
   }
 
+  /**
+   * The fewest qualified alternatives of a supplier of a version: over every (item, buyer) it is
+   * a qualified source of, the number of other qualified sources; null when it sells nothing
+   * qualified. The same number as `fewestAlternativesBySupplier` of `@keelson/scoring`, for one
+   * supplier, without reading the whole network.
+   */
+  fewestAlternatives(versionId: number, code: string): number | null {
+    const row = this.db.get<{ fewest: number | null }>(sql`select min((select
+        count(distinct o.supplier_code) from network_sourcing o
+        where o.version_id = s.version_id and o.buyer_code = s.buyer_code
+          and o.item_code = s.item_code and o.is_qualified = 1) - 1) as fewest
+      from network_sourcing s
+      where s.version_id = ${versionId} and s.supplier_code = ${code} and s.is_qualified = 1`);
+    return row?.fewest ?? null;
+  }
+
   /** The supplier's row in the most recently finished succeeded run that has it. */
   latestRunRow(code: string): RunSupplierRow | undefined {
     return this.db.select({ row: runSuppliers }).from(runSuppliers)

@@ -14,17 +14,12 @@ import type {
   RegisterOwnersDto,
   UpdateRegisterEntryInput,
 } from '@keelson/contracts';
-import type { KeelsonDatabase } from '@keelson/db';
-import {
-  fewestAlternativesBySupplier,
-  likelihoodOf,
-  registerScore,
-  type ScoringSettings,
-} from '@keelson/scoring';
+import type { KeelsonDatabase, NetworkSupplierRow } from '@keelson/db';
+import { likelihoodOf, registerScore, type ScoringSettings } from '@keelson/scoring';
 import { CountriesRepository } from '../countries/countries.repository';
 import { invalidRequest, notFound } from '../http/app-error';
 import type { SessionUser } from '../http/auth-context';
-import { latestNetworkVersionId, readNetworkModel } from '../network/network-store';
+import { latestNetworkVersionId } from '../network/network-store';
 import {
   checkPlantFilter,
   effectivePlants,
@@ -103,7 +98,7 @@ export class RegisterService {
     const ownerId = input.ownerId ?? null;
     if (ownerId !== null) this.checkOwner(ownerId);
     const settings = loadScoringSettings(db);
-    const scored = this.scoreOf(versionId, supplier.code, settings);
+    const scored = this.scoreOf(versionId, supplier, settings);
     const stamp = this.deps.now().toISOString();
     const id = repository.transaction(() => repository.insert({
       supplierCode: supplier.code, title: input.title, origin: 'manual', status: 'open',
@@ -201,20 +196,20 @@ export class RegisterService {
     }
   }
 
-  private scoreOf(versionId: number, code: string, settings: ScoringSettings) {
-    const run = this.deps.repository.latestRunRow(code);
+  private scoreOf(versionId: number, supplier: NetworkSupplierRow, settings: ScoringSettings) {
+    const { repository } = this.deps;
+    const code = supplier.code;
+    const run = repository.latestRunRow(code);
     if (run) {
       const score = registerScore(run.impactBand, run.likelihood, settings);
       return { ...score, runId: run.runId, plants: run.plants };
     }
-    const model = readNetworkModel(this.deps.db, versionId)!;
-    const supplier = model.suppliers.find((candidate) => candidate.code === code)!;
     const country = new CountriesRepository(this.deps.db).find(supplier.country.toUpperCase());
     const { likelihood } = likelihoodOf({
-      financialHealth: supplier.financialHealth ?? null,
-      deliveryScore: supplier.deliveryScore ?? null,
-      hasContinuityPlan: supplier.hasContinuityPlan ?? null,
-      fewestAlternatives: fewestAlternativesBySupplier(model).get(code) ?? null,
+      financialHealth: supplier.financialHealth,
+      deliveryScore: supplier.deliveryScore,
+      hasContinuityPlan: supplier.hasContinuityPlan,
+      fewestAlternatives: repository.fewestAlternatives(versionId, code),
       countryHazard: country?.hazard ?? null,
     }, settings);
     const score = registerScore(1, likelihood, settings);
