@@ -137,7 +137,7 @@ describe('RunPage', () => {
     (await open('/runs/5', run)).flush({ items: [], total: 0 });
     await settle();
     expect(root.querySelector('[data-testid="run-summary"]')?.textContent?.replace(/\s+/g, ' '))
-      .toContain('closeness estimated from 256 sampled suppliers (relative error up to 1.23%');
+      .toContain('closeness estimated from 256 sampled pivot nodes (relative error up to 1.23%');
   });
 
   it('sends every filter, the sort and the page from the URL', async () => {

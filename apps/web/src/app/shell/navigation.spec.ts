@@ -1,6 +1,12 @@
 import { ROLES, type Role } from '@keelson/contracts';
 import { describe, expect, it } from 'vitest';
-import { NAVIGATION, type NavigationPath, navigationFor, rolesFor } from './navigation';
+import {
+  NAVIGATION,
+  type NavigationPath,
+  activeNavigationPath,
+  navigationFor,
+  rolesFor,
+} from './navigation';
 
 // Expected entries per role, written out by hand from the product brief (Home and Network for
 // all; Import for buyers and administrators; Users, Sent mail and Countries for administrators),
@@ -49,5 +55,19 @@ describe('rolesFor', () => {
 
   it('throws, naming the path, for a path with no entry', () => {
     expect(() => rolesFor('nowhere' as NavigationPath)).toThrow(/no entry for path "nowhere"/);
+  });
+});
+
+describe('activeNavigationPath', () => {
+  const entries = navigationFor('admin');
+  it('picks the longest entry the URL lies under', () => {
+    expect(activeNavigationPath(entries, '/runs/scenarios')).toBe('runs/scenarios');
+    expect(activeNavigationPath(entries, '/runs/7?sort=rank')).toBe('runs');
+    expect(activeNavigationPath(entries, '/runs')).toBe('runs');
+    expect(activeNavigationPath(entries, '/admin/users')).toBe('admin/users');
+  });
+  it('does not take a path that only starts with the same letters, nor an unknown one', () => {
+    expect(activeNavigationPath(entries, '/runsheet')).toBeNull();
+    expect(activeNavigationPath(entries, '/nowhere')).toBeNull();
   });
 });

@@ -57,3 +57,20 @@ export function rolesFor(path: NavigationPath): readonly Role[] {
 export function navigationGuard(path: NavigationPath): CanActivateFn {
   return roleGuard(...rolesFor(path));
 }
+
+/**
+ * The path of the entry a URL belongs to: the longest entry path that the URL's path equals or
+ * lies under (`/runs/scenarios` is Scenarios, `/runs/7` is Analysis runs); null for none.
+ */
+export function activeNavigationPath(
+  entries: readonly NavigationEntry[],
+  url: string,
+): string | null {
+  const path = url.split(/[?#]/)[0]!.replace(/^\/+/, '');
+  let best: string | null = null;
+  for (const entry of entries) {
+    const isUnder = path === entry.path || path.startsWith(`${entry.path}/`);
+    if (isUnder && (best === null || entry.path.length > best.length)) best = entry.path;
+  }
+  return best;
+}

@@ -10,13 +10,13 @@ import { MatMenu, MatMenuItem, MatMenuTrigger } from '@angular/material/menu';
 import { MatSidenav, MatSidenavContainer, MatSidenavContent } from '@angular/material/sidenav';
 import { MatToolbar } from '@angular/material/toolbar';
 import { MatTooltip } from '@angular/material/tooltip';
-import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { NavigationEnd, Router, RouterLink, RouterOutlet } from '@angular/router';
 import { ROLE_LABELS } from '@keelson/contracts';
-import { map } from 'rxjs';
+import { filter, map } from 'rxjs';
 import { AuthApi } from '../auth/auth-api';
 import { SIGN_IN_PATH } from '../auth/auth-guard';
 import { Session } from '../auth/session';
-import { navigationFor } from './navigation';
+import { activeNavigationPath, navigationFor } from './navigation';
 import { ThemeToggle } from './theme-toggle';
 
 /** Below this width the sidenav floats over the content and closes after each choice. */
@@ -31,7 +31,6 @@ export const NARROW_LAYOUT_QUERY = '(max-width: 959.98px)';
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     RouterLink,
-    RouterLinkActive,
     RouterOutlet,
     MatDivider,
     MatIcon,
@@ -62,6 +61,15 @@ export class Shell {
 
   protected readonly user = this.session.user;
   protected readonly entries = computed(() => navigationFor(this.session.role()));
+  private readonly url = toSignal(
+    this.router.events.pipe(
+      filter((event) => event instanceof NavigationEnd),
+      map((event) => event.urlAfterRedirects),
+    ),
+    { initialValue: this.router.url },
+  );
+  /** The entry of the current page: the longest entry path the URL lies under. */
+  protected readonly activePath = computed(() => activeNavigationPath(this.entries(), this.url()));
   protected readonly roleLabel = computed(() => {
     const role = this.session.role();
     return role ? ROLE_LABELS[role] : '';
