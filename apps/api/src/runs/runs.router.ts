@@ -165,5 +165,6 @@ function streamProgress(runs: RunsService, req: Request, res: Response): void {
       res.end();
     }
   });
-  req.on('close', stop);
+  // The response closes when the client goes away (or after `end`): stop listening then.
+  res.on('close', stop);
 }
