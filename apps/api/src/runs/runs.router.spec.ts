@@ -11,6 +11,7 @@ import type { AnalysisRunDto, Role } from '@keelson/contracts';
 import { analysisRuns } from '@keelson/db';
 import { analyse } from '@keelson/supply-graph';
 import { generateTieredNetwork } from '@keelson/supply-graph/testing';
+import { runAnalysisInWorker } from '../analysis/run-analysis-in-worker';
 import { createKeelsonApp } from '../app';
 import { insertTestVersion } from '../network/network-test-versions';
 import { readNetworkModel } from '../network/network-store';
@@ -201,6 +202,18 @@ describe('failures leave nothing partial', () => {
     const api = await getAs(t, `/api/analysis-runs/${id}`);
     expect(api.body.status).toBe('failed');
   });
+
+  it('stores the error a real worker thread sends back, and no rows', async () => {
+    // The worker is asked for a scenario of a supplier that does not exist, so the engine in
+    // the thread throws UnknownSupplierError after the thread has started.
+    const runs = service((model, _options, hooks) =>
+      runAnalysisInWorker(model, { fail: ['NO-SUCH-SUPPLIER'] }, hooks));
+    const { id } = runs.start(null, { networkVersionId: 1, label: 'Bad scenario' });
+    const run = await runs.settled(id);
+    expect(run.status).toBe('failed');
+    expect(run.error).toMatch(/^The analysis failed: .*NO-SUCH-SUPPLIER/);
+    expect(resultRows(id)).toBe(0);
+  }, 60_000);
 
   it('rolls back every row and register change when storing fails half way', async () => {
     const model = readNetworkModel(t.database.db, 1)!;
