@@ -147,6 +147,9 @@ async function measureAll(): Promise<void> {
       sourcingRows: model.sourcing.length,
       storeSeconds,
       runSeconds,
+      // Of which: the engine in the worker, and scoring and writing the rows on the API thread.
+      analysisMs: round(run.timings?.total ?? NaN, 0),
+      storingResultsMs: round(run.timings?.['storing results'] ?? NaN, 0),
       connections,
       seconds,
       cores: cpus().length,
