@@ -8,6 +8,8 @@ export interface PlacedPathNode {
   label: string;
   /** Second line: the kind in words. */
   caption: string;
+  /** The supplier whose failure the paths start from. */
+  isOrigin: boolean;
   x: number;
   y: number;
 }
@@ -64,6 +66,7 @@ export function layoutFailurePaths(paths: readonly { nodes: PathNodeDto[] }[]): 
     });
   }
   const maxColumn = Math.max(0, ...[...nodes.values()].map((entry) => entry.column));
+  const originId = paths[0]?.nodes[0]?.id;
   const rows = new Map<number, number>();
   const { width, height, columnGap, rowGap, margin } = PATH_BOX;
   const placed = new Map<string, PlacedPathNode>();
@@ -77,6 +80,7 @@ export function layoutFailurePaths(paths: readonly { nodes: PathNodeDto[] }[]): 
       caption: entry.node.kind === 'supplier' && entry.node.tier !== null
         ? `tier ${entry.node.tier} supplier`
         : CAPTIONS[entry.node.kind],
+      isOrigin: entry.node.id === originId,
       x: margin + (maxColumn - entry.column) * (width + columnGap),
       y: margin + row * (height + rowGap),
     });

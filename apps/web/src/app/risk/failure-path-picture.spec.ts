@@ -24,6 +24,8 @@ describe('FailurePathPicture', () => {
     ]);
     expect(root.querySelectorAll('g.path-picture__node')).toHaveLength(7);
     expect(root.querySelectorAll('line.path-picture__edge')).toHaveLength(6);
+    const origins = root.querySelectorAll('g.path-picture__node--origin .path-picture__label');
+    expect([...origins].map((t) => t.textContent)).toEqual(['S-2-SHARED-A']);
   });
 
   it('places the supplier on the left and the products on the right by column', () => {

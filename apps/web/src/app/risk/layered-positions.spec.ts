@@ -9,7 +9,8 @@ describe('layeredPositions', () => {
     );
     expect(positions.get('plant')?.x).toBe(0);
     expect(positions.get('product')?.x).toBe(-LAYERED_DEFAULTS.columnGap);
-    expect(positions.get('supplier')?.x).toBe(-3 * LAYERED_DEFAULTS.columnGap);
+    // Column 2 is empty, so the supplier sits one gap further, not two.
+    expect(positions.get('supplier')?.x).toBe(-2 * LAYERED_DEFAULTS.columnGap);
   });
 
   it('uncrosses two edges by ordering a column after its neighbours', () => {
@@ -22,6 +23,18 @@ describe('layeredPositions', () => {
     );
     expect(positions.get('A')!.y).toBeLessThan(positions.get('B')!.y);
     expect(positions.get('D')!.y).toBeLessThan(positions.get('C')!.y);
+  });
+
+  it('deals a long column round-robin into sub-columns and shifts the next column left', () => {
+    const nodes = ['a', 'b', 'c', 'd', 'e'].map((id) => ({ id, column: 0 }));
+    const positions = layeredPositions([...nodes, { id: 'next', column: 1 }], [],
+      { maxPerColumn: 2, subColumnGap: 10, columnGap: 100, rowGap: 5 });
+    // Five nodes, at most two per sub-column: three sub-columns of two rows.
+    expect(['a', 'b', 'c', 'd', 'e'].map((id) => positions.get(id))).toEqual([
+      { x: 0, y: -2.5 }, { x: -10, y: -2.5 }, { x: -20, y: -2.5 }, { x: 0, y: 2.5 },
+      { x: -10, y: 2.5 },
+    ]);
+    expect(positions.get('next')).toEqual({ x: -120, y: 0 });
   });
 
   it('spreads a column evenly around 0 and ignores edges to unknown nodes', () => {
