@@ -6,7 +6,7 @@
  */
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Role } from '@keelson/contracts';
+import { RUN_NOT_READY, type Role } from '@keelson/contracts';
 import { analysisRuns, runSuppliers } from '@keelson/db';
 import { ACCOUNT_OF_ROLE, createTestApp, type TestApp } from '../testing/test-app';
 import {
@@ -189,7 +189,7 @@ describe('GET /api/network-versions/:id/picture', () => {
     expect(otherVersion.body.error.message).toContain(`query.runId: run ${run}`);
     const running = await get(`/api/network-versions/${small}/picture?runId=${runningRun}`);
     expect(running.status).toBe(409);
-    expect(running.body.error.code).toBe('run_not_succeeded');
+    expect(running.body.error.code).toBe(RUN_NOT_READY);
     const signedOut = await request(t.app).get(`/api/network-versions/${small}/picture`);
     expect(signedOut.status).toBe(401);
   });

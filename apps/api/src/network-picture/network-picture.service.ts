@@ -1,3 +1,4 @@
+import { RUN_NOT_READY } from '@keelson/contracts';
 import { buildSupplyGraph } from '@keelson/supply-graph';
 import { conflict, invalidRequest, notFound } from '../http/app-error';
 import type { SessionUser } from '../http/auth-context';
@@ -105,7 +106,7 @@ export class NetworkPictureService {
       );
     }
     if (run.status !== 'succeeded') {
-      throw conflict('run_not_succeeded',
+      throw conflict(RUN_NOT_READY,
         `Run ${runId} is ${run.status}; only a succeeded run has results to show.`,
         { runId, status: run.status });
     }
