@@ -1,5 +1,5 @@
 /**
- * `npm run bench [-- --sizes 1000,10000,50000] [--sample 64] [--no-import]`: speed and memory of
+ * `npm run bench [-- --sizes 1000,10000,50000] [--sample 64] [--no-import] [--no-api]`: speed and memory of
  * the analysis engine on seeded tiered networks (about 20 edges per supplier). Each size runs in its own child
  * process so that its peak RSS (`process.resourceUsage().maxRSS`) is its own. Prints a table and
  * writes tests/bench/results.json. See docs/performance.md for the figures and how to read them.
@@ -17,6 +17,7 @@ const { values } = parseArgs({
     sizes: { type: 'string', default: '1000,10000,50000' },
     sample: { type: 'string', default: '64' },
     import: { type: 'boolean', default: true },
+    api: { type: 'boolean', default: true },
     child: { type: 'string' },
   },
 });
@@ -62,16 +63,29 @@ if (values.child !== undefined) {
     );
     importResult = JSON.parse(output.trim().split('\n').at(-1)!);
   }
+  let apiResult: unknown = null;
+  if (values.api) {
+    // The ranking and register routes under load (issue: p95 under 100 ms at 10 000 suppliers).
+    process.stderr.write('api: ranking and register latency on a 10 000-supplier run...\n');
+    const output = execFileSync(
+      process.execPath,
+      ['--import', 'tsx', join(here, 'measure-api.ts')],
+      { encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'], maxBuffer: 1 << 24 },
+    );
+    apiResult = JSON.parse(output.trim().split('\n').at(-1)!);
+  }
   const report = {
     command: `npm run bench -- --sizes ${sizes.join(',')} --sample ${values.sample}`,
     date: new Date().toISOString(),
     machine,
     results,
     import: importResult,
+    api: apiResult,
   };
   writeFileSync(join(here, 'results.json'), `${JSON.stringify(report, null, 2)}\n`);
   process.stdout.write(formatTable(results));
   if (importResult !== null) process.stdout.write(formatImport(importResult as ImportResult));
+  if (apiResult !== null) process.stdout.write(`\nAPI latency: ${JSON.stringify(apiResult)}\n`);
   const { cores, cpu, memoryGb, node } = machine;
   process.stdout.write(`\nMachine: ${cores} x ${cpu}, ${memoryGb} GB, Node ${node}, `);
   process.stdout.write(`load average at start ${machine.loadAverageAtStart.join(' / ')}\n`);

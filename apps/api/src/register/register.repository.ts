@@ -76,9 +76,10 @@ export class RegisterRepository {
       .orderBy(direction(column), asc(e.id)).$dynamic();
     if (page) query = query.limit(page.limit).offset(page.offset);
     const rows = query.all();
-    const total = this.db.select({ value: count() }).from(e)
-      .leftJoin(networkSuppliers, this.supplierJoin(versionId))
-      .where(where).get()?.value ?? 0;
+    // The supplier join matters to the count only when the search may match a supplier name.
+    const counted = this.db.select({ value: count() }).from(e).$dynamic();
+    const total = (filter.q ? counted.leftJoin(networkSuppliers, this.supplierJoin(versionId))
+      : counted).where(where).get()?.value ?? 0;
     return { rows, total };
   }
 
