@@ -58,10 +58,10 @@ describe('signing in as each demo account', () => {
       await page.getByRole('button', { name: 'Sign in' }).click();
       const navigation = page.getByRole('navigation', { name: 'Main' });
       for (const label of account.sees) {
-        await expect.poll(() => navigation.getByRole('link', { name: label }).count()).toBe(1);
+        await expect.poll(() => navigation.getByRole('link', { name: label, exact: true }).count()).toBe(1);
       }
       for (const label of account.hidden) {
-        expect(await navigation.getByRole('link', { name: label }).count()).toBe(0);
+        expect(await navigation.getByRole('link', { name: label, exact: true }).count()).toBe(0);
       }
       await screenshot(page, `home-${account.role}`);
       await page.close();
