@@ -7,8 +7,8 @@
  */
 import { eq } from 'drizzle-orm';
 import {
+  connectionOf,
   registerEntries,
-  registerEntryPlants,
   runSuppliers,
   type KeelsonDatabase,
 } from '@keelson/db';
@@ -37,8 +37,15 @@ export function syncRegisterFromRun(
   settings: ScoringSettings,
   now: Date,
 ): RegisterSyncOutcome {
-  const results = db.select().from(runSuppliers).where(eq(runSuppliers.runId, runId)).all();
-  const entries = db.select().from(registerEntries).all();
+  // Only the columns the register needs: a row's per-product JSON can be large.
+  const results = db.select({
+    code: runSuppliers.code, name: runSuppliers.name, likelihood: runSuppliers.likelihood,
+    impactBand: runSuppliers.impactBand, rating: runSuppliers.rating,
+    ratingBand: runSuppliers.ratingBand, singlePointOfFailure: runSuppliers.singlePointOfFailure,
+    plants: runSuppliers.plants,
+  }).from(runSuppliers).where(eq(runSuppliers.runId, runId)).all();
+  const entries = db.select({ id: registerEntries.id, supplierCode: registerEntries.supplierCode,
+    likelihoodOverride: registerEntries.likelihoodOverride }).from(registerEntries).all();
   const bySupplier = new Map<string, (typeof entries)[number][]>();
   for (const entry of entries) {
     const list = bySupplier.get(entry.supplierCode) ?? [];
@@ -48,44 +55,39 @@ export function syncRegisterFromRun(
   const stamp = now.toISOString();
   let created = 0;
   let updated = 0;
+  // Prepared statements on the caller's connection (inside its transaction): a large run
+  // creates thousands of entries, and one statement per row is several times faster than the
+  // query builder.
+  const connection = connectionOf(db);
+  const updateEntry = connection.prepare(`UPDATE register_entries SET run_id = ?,
+    computed_likelihood = ?, impact_band = ?, rating = ?, rating_band = ?, updated_at = ?
+    WHERE id = ?`);
+  const insertEntry = connection.prepare(`INSERT INTO register_entries (supplier_code, title,
+    origin, status, run_id, computed_likelihood, impact_band, rating, rating_band, notes,
+    created_at, updated_at) VALUES (?, ?, 'automatic', 'open', ?, ?, ?, ?, ?, '', ?, ?)`);
+  const deletePlants = connection.prepare('DELETE FROM register_entry_plants WHERE entry_id = ?');
+  const insertPlant = connection.prepare(
+    'INSERT INTO register_entry_plants (entry_id, plant_code) VALUES (?, ?)');
   const setPlants = (entryId: number, plants: readonly string[]) => {
-    db.delete(registerEntryPlants).where(eq(registerEntryPlants.entryId, entryId)).run();
-    // One multi-row insert per entry; a lost product's plant appears once in `plants`.
-    const unique = [...new Set(plants)];
-    if (unique.length > 0) {
-      db.insert(registerEntryPlants).values(unique.map((plantCode) => ({ entryId, plantCode })))
-        .run();
-    }
+    deletePlants.run(entryId);
+    for (const plantCode of new Set(plants)) insertPlant.run(entryId, plantCode);
   };
   for (const result of results) {
     const existing = bySupplier.get(result.code) ?? [];
     for (const entry of existing) {
       const likelihood = entry.likelihoodOverride ?? result.likelihood;
       const score = registerScore(result.impactBand, likelihood, settings);
-      db.update(registerEntries)
-        .set({ runId, computedLikelihood: result.likelihood, impactBand: result.impactBand,
-          rating: score.rating, ratingBand: score.ratingBand, updatedAt: stamp })
-        .where(eq(registerEntries.id, entry.id))
-        .run();
+      updateEntry.run(runId, result.likelihood, result.impactBand, score.rating,
+        score.ratingBand, stamp, entry.id);
       setPlants(entry.id, result.plants);
       updated++;
     }
     const isFlagged = result.singlePointOfFailure || result.ratingBand !== 'low';
     if (existing.length === 0 && isFlagged) {
-      const entry = db.insert(registerEntries).values({
-        supplierCode: result.code,
-        title: automaticTitle(result.name, result.singlePointOfFailure, result.ratingBand),
-        origin: 'automatic',
-        status: 'open',
-        runId,
-        computedLikelihood: result.likelihood,
-        impactBand: result.impactBand,
-        rating: result.rating,
-        ratingBand: result.ratingBand,
-        createdAt: stamp,
-        updatedAt: stamp,
-      }).returning({ id: registerEntries.id }).get();
-      setPlants(entry.id, result.plants);
+      const title = automaticTitle(result.name, result.singlePointOfFailure, result.ratingBand);
+      const { lastInsertRowid } = insertEntry.run(result.code, title, runId, result.likelihood,
+        result.impactBand, result.rating, result.ratingBand, stamp, stamp);
+      setPlants(Number(lastInsertRowid), result.plants);
       created++;
     }
   }
