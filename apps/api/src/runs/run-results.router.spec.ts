@@ -242,4 +242,28 @@ describe('export.xlsx', () => {
     expect(text).toMatch(/No re-allocation/);
     expect(text).toMatch(/procedures decide/);
   });
+
+  it('holds what the ranking screen shows: its filters and its sort', async () => {
+    const response = await getAs(t,
+      `/api/analysis-runs/${runId}/export.xlsx?singlePointsOnly=true&sort=code&order=desc`)
+      .buffer(true).parse((res, callback) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (chunk: Buffer) => chunks.push(chunk));
+        res.on('end', () => callback(null, Buffer.concat(chunks)));
+      });
+    expect(response.status).toBe(200);
+    const workbook = new ExcelJS.Workbook();
+    const bytes = response.body as Buffer;
+    await workbook.xlsx.load(bytes.buffer.slice(bytes.byteOffset,
+      bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
+    const ranking = workbook.getWorksheet('Ranking')!;
+    // Expected from the analysis itself: the single points of failure, codes descending.
+    const expected = rows.filter((row) => row.singlePointOfFailure).map((row) => row.code)
+      .sort().reverse();
+    const codes = Array.from({ length: ranking.rowCount - 1 },
+      (_, i) => ranking.getRow(i + 2).getCell(2).value);
+    expect(codes).toEqual(expected);
+    expect((await getAs(t, `/api/analysis-runs/${runId}/export.xlsx?sort=nope`)).status)
+      .toBe(400);
+  });
 });

@@ -22,6 +22,9 @@ import { RunResultsRepository, type StoredRunSupplier } from './run-results.repo
 import { toProductPath } from './scenario-paths';
 import { RunsRepository, type RunRecord } from './runs.repository';
 
+/** The export's query: the ranking's sort and filters, without paging. */
+export type ExportRunSuppliersQuery = Omit<ListRunSuppliersQuery, 'limit' | 'offset'>;
+
 /** How many suppliers the Pareto chart shows. */
 export const PARETO_SIZE = 200;
 
@@ -47,11 +50,17 @@ export class RunResultsService {
     return { items: this.results.rowsByIds(page), total: matches.length };
   }
 
-  /** Every row in scope, in rank order, with the run (the export). */
-  everySupplier(user: SessionUser, runId: number):
+  /**
+   * Every row in scope (the export), in rank order or as `query` sorts and filters them like
+   * the ranking screen; 403 `plant_forbidden` for another plant's filter.
+   */
+  everySupplier(user: SessionUser, runId: number, query?: ExportRunSuppliersQuery):
     { run: RunRecord; rows: StoredRunSupplier[] } {
     const run = this.readyRun(runId);
-    const keys = this.rankings.get(runId).select({ plants: plantScopeOf(user) });
+    const keys = query === undefined
+      ? this.rankings.get(runId).select({ plants: plantScopeOf(user) })
+      : this.rankings.get(runId).select(this.filterOf(user, { ...query, limit: 1, offset: 0 }),
+        query.sort, query.order);
     return { run, rows: this.results.fullRowsByIds(keys.map((key) => key.rowId)) };
   }
 

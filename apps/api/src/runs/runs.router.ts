@@ -17,6 +17,9 @@ const runParams = z.object({ id: z.coerce.number().int().positive() });
 const supplierParams = runParams.extend({ code: z.string().trim().min(1).max(120) });
 
 const XLSX_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
+/** The export's query: the ranking's sort and filters, without paging. */
+const exportRunSuppliersQuerySchema = listRunSuppliersQuerySchema.omit({ limit: true,
+  offset: true });
 
 /** Seconds between the comment lines that keep an idle event stream open through proxies. */
 export const HEARTBEAT_MS = 15_000;
@@ -119,7 +122,9 @@ export function createRunsRouter(deps: RunsRouterDeps): Router {
     roles: SIGNED_IN,
     handler: async (req, res) => {
       const { id } = parseInput(runParams, req.params, 'params');
-      const { run, rows } = results.everySupplier(sessionUser(req), id);
+      // The same sort and filters as the ranking screen, so the file holds what it shows.
+      const query = parseInput(exportRunSuppliersQuerySchema, req.query, 'query');
+      const { run, rows } = results.everySupplier(sessionUser(req), id, query);
       const bytes = await runRankingWorkbook(run, rows);
       res.status(200).type(XLSX_TYPE).attachment(`keelson-run-${id}-ranking.xlsx`).send(bytes);
     },

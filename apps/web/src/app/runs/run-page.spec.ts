@@ -155,8 +155,13 @@ describe('RunPage', () => {
     const exportLink = [...root.querySelectorAll('a')].find((link) =>
       link.textContent?.includes('Export the ranking'),
     )!;
-    // The server exports the whole ranking in the person's scope, whatever the filters.
-    expect(exportLink.getAttribute('href')).toBe('/api/analysis-runs/5/export.xlsx');
+    // The export carries the screen's filters and sort, not its page.
+    const href = new URL(exportLink.getAttribute('href')!, 'http://keelson.test');
+    expect(href.pathname).toBe('/api/analysis-runs/5/export.xlsx');
+    expect(Object.fromEntries(href.searchParams)).toEqual({
+      q: 'orv', plant: 'P-NORTH', tier: '2', country: 'DE', region: 'Europe',
+      ratingBand: 'high', singlePointsOnly: 'true', sort: 'revenueImpact', order: 'desc',
+    });
   });
 
   it('sorts on the server by a clicked column and pages with the paginator', async () => {

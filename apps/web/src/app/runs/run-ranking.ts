@@ -141,7 +141,8 @@ export class RunRanking {
   protected readonly page = pagedRows(toObservable(this.request), ({ runId, query }) =>
     this.runsApi.suppliers(runId, query),
   );
-  protected readonly exportUrl = computed(() => this.runsApi.exportUrl(this.runId()));
+  protected readonly exportUrl = computed(() =>
+    this.runsApi.exportUrl(this.runId(), this.query()));
 
   protected clearCell(): void {
     this.table.setFilters({ likelihood: undefined, impactBand: undefined });

@@ -72,11 +72,16 @@ export class RunsApi {
   }
 
   /**
-   * Where the whole ranking (every supplier of the run the person may see) downloads as a
-   * workbook. A plain link is enough: the browser sends the session cookie with a GET.
+   * Where the ranking downloads as a workbook, with the screen's filters and sort (no paging:
+   * every matching supplier the person may see). A plain link is enough: the browser sends the
+   * session cookie with a GET.
    */
-  exportUrl(id: number): string {
-    return `${BASE}/${id}/export.xlsx`;
+  exportUrl(id: number, query: RunSupplierQuery = {}): string {
+    const { limit: _limit, offset: _offset, ...filters } = query;
+    void _limit;
+    void _offset;
+    const params = browseParams(filters).toString();
+    return `${BASE}/${id}/export.xlsx${params ? `?${params}` : ''}`;
   }
 
   /** GET /api/settings/scoring: the impact band limits and rating band floors in force. */
