@@ -65,6 +65,10 @@ describe('activeNavigationPath', () => {
     expect(activeNavigationPath(entries, '/runs/7?sort=rank')).toBe('runs');
     expect(activeNavigationPath(entries, '/runs')).toBe('runs');
     expect(activeNavigationPath(entries, '/admin/users')).toBe('admin/users');
+    expect(activeNavigationPath(entries, '/risk')).toBe('risk');
+  });
+  it('gives a run\'s supplier risk page to the runs, though it lives under /risk', () => {
+    expect(activeNavigationPath(entries, '/risk/3/suppliers/S-1')).toBe('runs');
   });
   it('does not take a path that only starts with the same letters, nor an unknown one', () => {
     expect(activeNavigationPath(entries, '/runsheet')).toBeNull();

@@ -12,6 +12,8 @@ export interface NavigationEntry {
   readonly path: string;
   /** The roles that may open it; the sidenav and the route guard both read this. */
   readonly roles: readonly Role[];
+  /** Other pages that belong to this entry, as URL paths without the leading slash. */
+  readonly owns?: RegExp;
 }
 
 /**
@@ -23,7 +25,9 @@ export const NAVIGATION = [
   { label: 'Home', icon: 'home', path: 'home', roles: ROLES },
   { label: 'Import', icon: 'upload_file', path: 'imports', roles: ['buyer', 'admin'] },
   { label: 'Network', icon: 'account_tree', path: 'network', roles: ROLES },
-  { label: 'Analysis runs', icon: 'insights', path: 'runs', roles: ROLES },
+  // A run's supplier risk page lives under /risk but is part of reviewing a run.
+  { label: 'Analysis runs', icon: 'insights', path: 'runs', roles: ROLES,
+    owns: /^risk\/\d+\/suppliers\// },
   { label: 'Scenarios', icon: 'thunderstorm', path: 'runs/scenarios', roles: ROLES },
   { label: 'Network picture', icon: 'hub', path: 'risk', roles: ROLES },
   { label: 'Risk register', icon: 'fact_check', path: 'register', roles: ROLES },
@@ -67,6 +71,8 @@ export function activeNavigationPath(
   url: string,
 ): string | null {
   const path = url.split(/[?#]/)[0]!.replace(/^\/+/, '');
+  const owner = entries.find((entry) => entry.owns?.test(path));
+  if (owner) return owner.path;
   let best: string | null = null;
   for (const entry of entries) {
     const isUnder = path === entry.path || path.startsWith(`${entry.path}/`);
