@@ -107,6 +107,12 @@ describe('the risk manager reviews the single points of failure', () => {
       await expect.poll(() => page.getByRole('table', { name: 'Ranking of suppliers' })
         .getByRole('row').count(), { timeout: 15_000 }).toBe(Math.min(count!, 25) + 1);
 
+      // The Pareto chart of revenue impact by supplier.
+      await page.getByRole('tab', { name: 'Pareto' }).click();
+      await page.locator('canvas').first().waitFor();
+      await page.waitForTimeout(1200);
+      await screenshot(page, 'review-4b-pareto');
+
       // 6. A country scenario: every supplier in CZ fails at once.
       await navigation.getByRole('link', { name: 'Scenarios' }).click();
       await page.getByLabel('Countries').click();
@@ -116,6 +122,23 @@ describe('the risk manager reviews the single points of failure', () => {
       const result = page.locator('section.scenarios__result');
       await expect.poll(() => result.textContent(), { timeout: 30_000 }).toMatch(/lost/i);
       await screenshot(page, 'review-5-scenario');
+
+      // 7. The network picture, laid out in tiers, with this run's single points marked.
+      await navigation.getByRole('link', { name: 'Network picture' }).click();
+      const picture = page.getByRole('img', { name: /Network picture/ });
+      await picture.waitFor({ timeout: 30_000 });
+      await expect.poll(() => picture.locator('canvas').count(), { timeout: 30_000 })
+        .toBeGreaterThan(0);
+      await page.waitForTimeout(2500);
+      await screenshot(page, 'review-6-network-picture');
+
+      // 8. The register as printed for the review meeting.
+      await page.goto(`${server.url}/register/print`);
+      const printed = page.getByRole('table', { name: 'Register entries for print' });
+      await expect.poll(() => printed.getByRole('row').count(), { timeout: 15_000 })
+        .toBeGreaterThan(10);
+      await page.emulateMedia({ media: 'print' });
+      await screenshot(page, 'review-7-register-print');
       await page.close();
     });
 });
