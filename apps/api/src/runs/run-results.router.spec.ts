@@ -4,6 +4,10 @@
  * `npm run analyze` (tools/analyze.ts) runs on that file; the rank order, every sort, filter,
  * heat-map count and Pareto share is recomputed here from the full list of rows.
  */
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import ExcelJS from 'exceljs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
@@ -54,6 +58,24 @@ describe('the ranking against npm run analyze on the demo workbook', () => {
       expect(row.plants).toEqual(plants);
     });
   });
+  it('equals the JSON that the analyser command itself writes, field by field', () => {
+    // The real command, as a user runs it: npm run analyze -- <workbook> --json <file>.
+    const root = join(import.meta.dirname, '..', '..', '..', '..');
+    const out = join(mkdtempSync(join(tmpdir(), 'keelson-run-vs-cli-')), 'demo.json');
+    const run = spawnSync(process.execPath, ['--import', 'tsx', 'tools/analyze.ts',
+      'data/demo/keelson-demo.xlsx', '--json', out], { cwd: root, encoding: 'utf8',
+      timeout: 120_000 });
+    expect(run.status).toBe(0);
+    const cli = JSON.parse(readFileSync(out, 'utf8')) as { suppliers: Record<string, unknown>[] };
+    const byCode = new Map(rows.map((row) => [row.code, row]));
+    expect(cli.suppliers.map((s) => s['code'])).toEqual([...byCode.keys()].sort(codeOrder));
+    for (const want of cli.suppliers) {
+      const row = byCode.get(want['code'] as string)!;
+      for (const field of SPEC_FIELDS) {
+        expect([row.code, field, row[field]]).toEqual([row.code, field, want[field]]);
+      }
+    }
+  }, 120_000);
   it('scores each supplier: rating = impact band x likelihood, banded as spec 7 says', () => {
     const yearly = reference.totals.totalWeeklyRevenue * 52;
     for (const row of rows) {
