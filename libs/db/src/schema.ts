@@ -604,6 +604,142 @@ export const likelihoodOverrides = sqliteTable(
   (table) => [index('likelihood_overrides_entry_index').on(table.entryId)],
 );
 
+/** Mitigation strategies; the same list as `PLAN_STRATEGIES` in `@keelson/contracts`. */
+export const PLAN_STRATEGY_VALUES = ['second_source', 'safety_stock', 'qualify_alternate',
+  'contract_terms', 'accept', 'other'] as const;
+/** Plan statuses; the same list as `PLAN_STATUSES` in `@keelson/contracts`. */
+export const PLAN_STATUS_VALUES = ['draft', 'submitted', 'approved', 'rejected', 'in_progress',
+  'done', 'withdrawn'] as const;
+/** Task statuses; the same list as `TASK_STATUSES` in `@keelson/contracts`. */
+export const TASK_STATUS_VALUES = ['todo', 'doing', 'done', 'cancelled'] as const;
+
+/** Mitigation plans: what is done about a register entry, and its approval. */
+export const mitigationPlans = sqliteTable(
+  'mitigation_plans',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    entryId: integer('entry_id')
+      .notNull()
+      .references(() => registerEntries.id, { onDelete: 'cascade' }),
+    strategy: text('strategy', { enum: PLAN_STRATEGY_VALUES }).notNull(),
+    description: text('description').notNull(),
+    estimatedCost: real('estimated_cost'),
+    targetDate: text('target_date'),
+    status: text('status', { enum: PLAN_STATUS_VALUES }).notNull().default('draft'),
+    /** Proposed network changes for the what-if (`PlanChange[]`), JSON. */
+    changes: text('changes', { mode: 'json' }).$type<Record<string, unknown>[]>().notNull(),
+    /** The what-if's before and after (`WhatIfResultDto`), JSON; null until run. */
+    whatIf: text('what_if', { mode: 'json' }).$type<Record<string, unknown>>(),
+    /** The comment of the last rejection, shown on the draft. */
+    rejectionComment: text('rejection_comment'),
+    authorId: integer('author_id').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: text('created_at').notNull(),
+    updatedAt: text('updated_at').notNull(),
+    submittedAt: text('submitted_at'),
+    decidedAt: text('decided_at'),
+  },
+  (table) => [
+    index('mitigation_plans_entry_index').on(table.entryId),
+    index('mitigation_plans_status_index').on(table.status),
+  ],
+);
+
+/** One plant manager's decision on a submitted plan, per plant the risk touches. */
+export const planDecisions = sqliteTable(
+  'plan_decisions',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    planId: integer('plan_id')
+      .notNull()
+      .references(() => mitigationPlans.id, { onDelete: 'cascade' }),
+    plantCode: text('plant_code').notNull(),
+    decision: text('decision', { enum: ['approved', 'rejected'] }).notNull(),
+    comment: text('comment').notNull().default(''),
+    userId: integer('user_id').references(() => users.id, { onDelete: 'set null' }),
+    /** The submission the decision belongs to (a plan can be resubmitted after a rejection). */
+    submittedAt: text('submitted_at').notNull(),
+    createdAt: text('created_at').notNull(),
+  },
+  (table) => [
+    uniqueIndex('plan_decisions_once_per_plant').on(table.planId, table.submittedAt,
+      table.plantCode),
+  ],
+);
+
+/** Tasks of a plan. */
+export const planTasks = sqliteTable(
+  'plan_tasks',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    planId: integer('plan_id')
+      .notNull()
+      .references(() => mitigationPlans.id, { onDelete: 'cascade' }),
+    title: text('title').notNull(),
+    ownerId: integer('owner_id').references(() => users.id, { onDelete: 'set null' }),
+    dueDate: text('due_date'),
+    status: text('status', { enum: TASK_STATUS_VALUES }).notNull().default('todo'),
+    createdAt: text('created_at').notNull(),
+    updatedAt: text('updated_at').notNull(),
+  },
+  (table) => [
+    index('plan_tasks_plan_index').on(table.planId),
+    index('plan_tasks_owner_index').on(table.ownerId, table.status),
+  ],
+);
+
+/** Comments on a task. */
+export const taskComments = sqliteTable(
+  'task_comments',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    taskId: integer('task_id')
+      .notNull()
+      .references(() => planTasks.id, { onDelete: 'cascade' }),
+    userId: integer('user_id').references(() => users.id, { onDelete: 'set null' }),
+    text: text('text').notNull(),
+    createdAt: text('created_at').notNull(),
+  },
+  (table) => [index('task_comments_task_index').on(table.taskId)],
+);
+
+/**
+ * The audit trail: one row per change that matters (imports, runs, overrides, register edits,
+ * plan submissions and decisions, task changes, user and role changes). Append-only: no route
+ * updates or deletes a row (triggers in the migration refuse it).
+ */
+export const auditEvents = sqliteTable(
+  'audit_events',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    /** e.g. `import.committed`, `run.succeeded`, `register.likelihood_overridden`. */
+    action: text('action').notNull(),
+    /** The kind and id of what changed: `register_entry` 12, `plan` 3, `user` 7 ... */
+    subjectType: text('subject_type').notNull(),
+    subjectId: text('subject_id').notNull(),
+    // No ON DELETE action: audit rows never change, so a user with a trail is deactivated,
+    // never deleted.
+    userId: integer('user_id').references(() => users.id),
+    /** JSON snapshots of what changed, before and after (null when not applicable). */
+    before: text('before', { mode: 'json' }).$type<Record<string, unknown>>(),
+    after: text('after', { mode: 'json' }).$type<Record<string, unknown>>(),
+    createdAt: text('created_at').notNull(),
+  },
+  (table) => [
+    index('audit_events_subject_index').on(table.subjectType, table.subjectId),
+    index('audit_events_created_index').on(table.createdAt),
+  ],
+);
+
+/** Per-user e-mail preferences (unsubscribe from each kind of message). */
+export const mailPreferences = sqliteTable('mail_preferences', {
+  userId: integer('user_id')
+    .primaryKey()
+    .references(() => users.id, { onDelete: 'cascade' }),
+  /** Kinds the user does not want (`plan_submitted`, `plan_decided`, `task_assigned`, `digest`). */
+  unsubscribed: text('unsubscribed', { mode: 'json' }).$type<string[]>().notNull(),
+  updatedAt: text('updated_at').notNull(),
+});
+
 /** A row of `users`. */
 export type UserRow = typeof users.$inferSelect;
 /** A new row of `users`. */
