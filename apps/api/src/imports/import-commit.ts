@@ -8,6 +8,7 @@
  */
 import type { NetworkChangesDto, SupplyModel } from '@keelson/contracts';
 import type { KeelsonDatabase } from '@keelson/db';
+import { recordAudit } from '../audit/audit-trail';
 import { conflict } from '../http/app-error';
 import {
   insertNetworkVersion,
@@ -71,6 +72,10 @@ export function commitNetwork(
       changes: { ...changes },
     });
     batches.updateBatch(request.batchId, { status: 'committed', committedAt: request.createdAt });
+    recordAudit(tx, { action: 'import.committed', subjectType: 'network_version', subjectId: id,
+      userId: request.createdBy, after: { importBatchId: request.batchId,
+        fileName: request.fileName, counts: { ...counts }, previousVersionId } },
+    new Date(request.createdAt));
     return { versionId: id, counts, changes };
   });
 }

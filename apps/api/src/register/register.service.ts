@@ -16,6 +16,7 @@ import type {
 } from '@keelson/contracts';
 import type { KeelsonDatabase, NetworkSupplierRow } from '@keelson/db';
 import { likelihoodOf, registerScore, type ScoringSettings } from '@keelson/scoring';
+import { recordAudit } from '../audit/audit-trail';
 import { CountriesRepository } from '../countries/countries.repository';
 import { invalidRequest, notFound } from '../http/app-error';
 import type { SessionUser } from '../http/auth-context';
@@ -116,14 +117,22 @@ export class RegisterService {
 
   /** Changes the title, owner (an active user), status or notes of an entry. */
   update(user: SessionUser, id: number, input: UpdateRegisterEntryInput): RegisterEntryDetailDto {
-    this.detail(user, id);
+    const before = this.detail(user, id);
     if (input.ownerId !== undefined && input.ownerId !== null) this.checkOwner(input.ownerId);
-    this.deps.repository.update(id, {
+    const changes = {
       ...(input.title === undefined ? {} : { title: input.title }),
       ...(input.ownerId === undefined ? {} : { ownerId: input.ownerId }),
       ...(input.status === undefined ? {} : { status: input.status }),
       ...(input.notes === undefined ? {} : { notes: input.notes }),
-      updatedAt: this.deps.now().toISOString(),
+    };
+    const now = this.deps.now();
+    const { repository } = this.deps;
+    repository.transaction(() => {
+      repository.update(id, { ...changes, updatedAt: now.toISOString() });
+      const previous = Object.fromEntries(Object.keys(changes).map((key) =>
+        [key, key === 'ownerId' ? (before.owner?.id ?? null) : before[key as keyof typeof before]]));
+      recordAudit(this.deps.db, { action: 'register.updated', subjectType: 'register_entry',
+        subjectId: id, userId: user.id, before: previous, after: changes }, now);
     });
     return this.detail(user, id);
   }
@@ -149,6 +158,11 @@ export class RegisterService {
       repository.insertOverride({ entryId: id, likelihood: input.likelihood,
         previous: entry.likelihoodOverride, reason: input.reason, userId: user.id,
         createdAt: stamp });
+      recordAudit(this.deps.db, { action: 'register.likelihood_overridden',
+        subjectType: 'register_entry', subjectId: id, userId: user.id,
+        before: { likelihoodOverride: entry.likelihoodOverride, rating: entry.rating },
+        after: { likelihoodOverride: input.likelihood, rating: score.rating,
+          reason: input.reason } }, new Date(stamp));
     });
     return this.detail(user, id);
   }

@@ -14,6 +14,7 @@ import type {
 import type { KeelsonDatabase } from '@keelson/db';
 import { AnalysisCancelledError } from '@keelson/supply-graph';
 import { runAnalysisInWorker } from '../analysis/run-analysis-in-worker';
+import { recordAudit } from '../audit/audit-trail';
 import { conflict, notFound } from '../http/app-error';
 import type { SessionUser } from '../http/auth-context';
 import { readNetworkModel } from '../network/network-store';
@@ -189,7 +190,13 @@ export class RunsService {
         }, ['running'], tx);
         // Cancelled while the results were computed: roll everything back.
         if (!isMarked) throw new AnalysisCancelledError('storing');
-        syncRegisterFromRun(tx, id, settings, finishedAt);
+        const synced = syncRegisterFromRun(tx, id, settings, finishedAt);
+        recordAudit(tx, { action: 'run.succeeded', subjectType: 'analysis_run', subjectId: id,
+          userId: run.createdBy, after: { networkVersionId: run.networkVersionId,
+            suppliers: analysis.totals.suppliers,
+            singlePointsOfFailure: analysis.totals.singlePointsOfFailure,
+            registerEntriesCreated: synced.created, registerEntriesUpdated: synced.updated } },
+        finishedAt);
       });
     } catch (error) {
       if (!(error instanceof AnalysisCancelledError)) {
