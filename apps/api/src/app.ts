@@ -22,6 +22,7 @@ import { MailRepository } from './mail/mail.repository';
 import { MailService } from './mail/mail.service';
 import type { Mailer } from './mail/mailer';
 import { mountImportRoutes } from './imports/imports.module';
+import { NetworkGraphCache } from './network/network-graph-cache';
 import { mountNetworkRoutes } from './network/network.module';
 import { mountNetworkPictureRoutes } from './network-picture/network-picture.module';
 import { mountRegisterRoutes } from './register/register.module';
@@ -104,7 +105,8 @@ export function createKeelsonApp(deps: AppDeps): KeelsonApp {
   app.use('/api/users', createUsersRouter(users));
   app.use('/api/plants', createPlantsRouter(plants));
   app.use('/api/admin/mail', createMailRouter(mail));
-  const featureDeps = { config, db, logger: deps.logger, now, plants: plantsRepository };
+  const featureDeps = { config, db, logger: deps.logger, now, plants: plantsRepository,
+    graphs: new NetworkGraphCache(db) };
   mountImportRoutes(app, featureDeps);
   mountNetworkRoutes(app, featureDeps);
   mountRunRoutes(app, featureDeps);

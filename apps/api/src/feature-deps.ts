@@ -1,6 +1,7 @@
 import type { Logger } from 'pino';
 import type { KeelsonDatabase } from '@keelson/db';
 import type { AppConfig } from './config/app-config';
+import type { NetworkGraphCache } from './network/network-graph-cache';
 import type { PlantsRepository } from './plants/plants.repository';
 
 /** What a feature module (imports, network, ...) receives to build its routers. */
@@ -11,4 +12,6 @@ export interface FeatureDeps {
   now: () => Date;
   /** The organisation's plants and their managers (plant scoping). */
   plants: PlantsRepository;
+  /** Built supply graphs of recent network versions, shared by every feature. */
+  graphs: NetworkGraphCache;
 }

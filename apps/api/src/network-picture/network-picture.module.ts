@@ -6,6 +6,7 @@ import { NetworkPictureService } from './network-picture.service';
 
 /** Mounts /api/network-versions/:id/picture. */
 export function mountNetworkPictureRoutes(app: Express, deps: FeatureDeps): void {
-  const service = new NetworkPictureService(new NetworkPictureRepository(deps.db));
+  const service = new NetworkPictureService(new NetworkPictureRepository(deps.db),
+    deps.graphs);
   app.use('/api/network-versions', createNetworkPictureRouter(service));
 }

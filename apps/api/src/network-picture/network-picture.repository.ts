@@ -1,7 +1,5 @@
 import { eq } from 'drizzle-orm';
-import type { SupplyModel } from '@keelson/contracts';
 import { analysisRuns, runSuppliers, type KeelsonDatabase } from '@keelson/db';
-import { readNetworkModel } from '../network/network-store';
 
 /** The run facts the picture needs. */
 export interface PictureRunRecord {
@@ -19,14 +17,9 @@ export interface PictureRunSupplier {
   plants: string[];
 }
 
-/** Database reads of the network picture: the model of a version and a run's supplier rows. */
+/** Database reads of the network picture: a run and its supplier rows. */
 export class NetworkPictureRepository {
   constructor(private readonly db: KeelsonDatabase) {}
-
-  /** The supply model of a version; null when there is no such version. */
-  model(versionId: number): SupplyModel | null {
-    return readNetworkModel(this.db, versionId);
-  }
 
   /** A run's id, version and status; null when there is no such run. */
   run(runId: number): PictureRunRecord | null {

@@ -1,7 +1,8 @@
 import { RUN_NOT_READY } from '@keelson/contracts';
-import { buildSupplyGraph } from '@keelson/supply-graph';
+import type { SupplyGraph } from '@keelson/supply-graph';
 import { conflict, invalidRequest, notFound } from '../http/app-error';
 import type { SessionUser } from '../http/auth-context';
+import type { NetworkGraphCache } from '../network/network-graph-cache';
 import { plantScopeOf, type PlantScope } from '../network/plant-scope';
 import {
   aggregatedPicture,
@@ -23,26 +24,23 @@ import type { NetworkPictureRepository } from './network-picture.repository';
 export interface NetworkPictureOptions {
   /** Visible nodes above which the picture is grouped; {@link AGGREGATE_ABOVE_NODES}. */
   aggregateAbove?: number;
-  /** Versions whose graph is kept in memory (least recently used dropped first); 4. */
-  cachedVersions?: number;
 }
 
 /**
  * The picture of a network version: every node and edge a user may see, or above a size the
- * grouped form, with a run's single points of failure marked. The graph of a version is built
- * once and kept (versions never change), for the few most recently drawn versions.
+ * grouped form, with a run's single points of failure marked. The graph comes from the app's
+ * shared graph cache; the layers and labels derived from it are kept as long as that graph is.
  */
 export class NetworkPictureService {
-  private readonly cache = new Map<number, PictureBase>();
+  private readonly bases = new WeakMap<SupplyGraph, PictureBase>();
   private readonly aggregateAbove: number;
-  private readonly cachedVersions: number;
 
   constructor(
     private readonly repository: NetworkPictureRepository,
+    private readonly graphs: NetworkGraphCache,
     options: NetworkPictureOptions = {},
   ) {
     this.aggregateAbove = options.aggregateAbove ?? AGGREGATE_ABOVE_NODES;
-    this.cachedVersions = options.cachedVersions ?? 4;
   }
 
   /** The picture of version `versionId` for `user`. */
@@ -74,19 +72,11 @@ export class NetworkPictureService {
   }
 
   private base(versionId: number): PictureBase {
-    const cached = this.cache.get(versionId);
-    if (cached) {
-      // Re-insert so the map's order stays least recently used first.
-      this.cache.delete(versionId);
-      this.cache.set(versionId, cached);
-      return cached;
-    }
-    const model = this.repository.model(versionId);
-    if (!model) throw notFound(`There is no network version ${versionId}.`);
-    const base = pictureBase(buildSupplyGraph(model));
-    this.cache.set(versionId, base);
-    while (this.cache.size > this.cachedVersions) {
-      this.cache.delete(this.cache.keys().next().value!);
+    const { graph } = this.graphs.get(versionId);
+    let base = this.bases.get(graph);
+    if (!base) {
+      base = pictureBase(graph);
+      this.bases.set(graph, base);
     }
     return base;
   }

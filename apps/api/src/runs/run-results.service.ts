@@ -16,7 +16,7 @@ import { failurePaths, type SupplyGraph } from '@keelson/supply-graph';
 import { AppError, conflict, notFound } from '../http/app-error';
 import type { SessionUser } from '../http/auth-context';
 import { checkPlantFilter, effectivePlants, plantScopeOf } from '../network/plant-scope';
-import type { NetworkGraphCache } from './network-graph-cache';
+import type { NetworkGraphCache } from '../network/network-graph-cache';
 import { RunRankingCache, type RankingFilter } from './run-ranking-index';
 import { RunResultsRepository, type StoredRunSupplier } from './run-results.repository';
 import { toProductPath } from './scenario-paths';

@@ -1,6 +1,5 @@
 import type { Express } from 'express';
 import type { FeatureDeps } from '../feature-deps';
-import { NetworkGraphCache } from './network-graph-cache';
 import { RunResultsService } from './run-results.service';
 import { createRunsRouter } from './runs.router';
 import { RunsService, type Analyser } from './runs.service';
@@ -23,7 +22,7 @@ export function mountRunRoutes(
   deps: FeatureDeps,
   options: RunRoutesOptions = {},
 ): RunsService {
-  const graphs = new NetworkGraphCache(deps.db);
+  const { graphs } = deps;
   const runs = new RunsService({ db: deps.db, now: deps.now, analyser: options.analyser });
   const interrupted = runs.failInterrupted();
   if (interrupted > 0) {

@@ -11,7 +11,7 @@ import { analyse, buildSupplyGraph, failurePaths, impactOf } from '@keelson/supp
 import { ACCOUNT_OF_ROLE, createTestApp, type TestApp } from '../testing/test-app';
 import { demoModel, postAs } from './run-spec-helpers';
 import { insertTestVersion, smallNetwork } from '../network/network-test-versions';
-import { NetworkGraphCache } from './network-graph-cache';
+import { NetworkGraphCache } from '../network/network-graph-cache';
 
 let t: TestApp;
 let model: SupplyModel;

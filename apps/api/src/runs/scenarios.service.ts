@@ -13,7 +13,7 @@ import { compareCodePoints, impactOf } from '@keelson/supply-graph';
 import { conflict, invalidRequest, notFound } from '../http/app-error';
 import type { SessionUser } from '../http/auth-context';
 import { isInScope, plantScopeOf } from '../network/plant-scope';
-import type { NetworkGraphCache } from './network-graph-cache';
+import type { NetworkGraphCache } from '../network/network-graph-cache';
 import { scenarioPaths } from './scenario-paths';
 import type { ScenarioRecord, ScenariosRepository } from './scenarios.repository';
 

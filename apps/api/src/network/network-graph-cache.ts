@@ -1,12 +1,13 @@
 /**
  * The supply graph of a network version, built once and kept for the next request: a
- * supplier's risk page and a scenario both need the graph, and building it reads every row of
- * the version. An LRU of two versions (usually the latest and the one before it) bounds memory.
+ * supplier's risk page, a scenario and the network picture all need it, and building it reads
+ * every row of the version. One cache per app (`FeatureDeps.graphs`), so a version's graph is
+ * built once whichever screen asks first. An LRU of a few versions bounds memory.
  */
 import type { KeelsonDatabase } from '@keelson/db';
 import { buildSupplyGraph, tiers, type SupplyGraph } from '@keelson/supply-graph';
 import { notFound } from '../http/app-error';
-import { readNetworkModel } from '../network/network-store';
+import { readNetworkModel } from './network-store';
 
 /** A version's graph and its supplier tiers. */
 export interface CachedGraph {
@@ -15,7 +16,7 @@ export interface CachedGraph {
 }
 
 /** How many versions' graphs are kept. */
-export const GRAPH_CACHE_SIZE = 2;
+export const GRAPH_CACHE_SIZE = 4;
 
 /** Least-recently-used cache of built supply graphs by version id. */
 export class NetworkGraphCache {
