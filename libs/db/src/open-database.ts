@@ -94,3 +94,23 @@ export function connectionOf(handle: object): Database.Database {
   }
   return connection;
 }
+
+/**
+ * Inserts many rows with one prepared statement run per row: on a transaction's connection this
+ * is several times faster than multi-row INSERTs built by the query builder. `table` and
+ * `columns` are the caller's constants, never user input; `values` gives one row's values in
+ * column order (booleans as 0/1, JSON as text).
+ */
+export function insertRows<T>(
+  connection: Database.Database,
+  table: string,
+  columns: readonly string[],
+  records: Iterable<T>,
+  values: (record: T) => unknown[],
+): void {
+  const placeholders = columns.map(() => '?').join(', ');
+  const statement = connection.prepare(
+    `INSERT INTO ${table} (${columns.join(', ')}) VALUES (${placeholders})`,
+  );
+  for (const record of records) statement.run(values(record));
+}

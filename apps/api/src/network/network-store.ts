@@ -8,6 +8,7 @@ import { asc, desc, eq } from 'drizzle-orm';
 import type { SupplyModel } from '@keelson/contracts';
 import {
   connectionOf,
+  insertRows,
   networkBomLines,
   networkItems,
   networkPlants,
@@ -79,58 +80,39 @@ export function insertNetworkVersion(
   const flag = (value: boolean | null) => (value === null ? null : value ? 1 : 0);
   const row = (record: { row?: number }) => record.row ?? null;
 
-  bulkInsert(connection, 'network_plants',
+  insertRows(connection, 'network_plants',
     ['version_id', 'code', 'name', 'country', 'row', 'attributes'],
     model.plants, (p) => [versionId, p.code, p.name, p.country, row(p), json(p)]);
-  bulkInsert(connection, 'network_products',
+  insertRows(connection, 'network_products',
     ['version_id', 'code', 'plant_code', 'name', 'weekly_revenue', 'row', 'attributes'],
     model.products,
     (p) => [versionId, p.code, p.plantCode, p.name, p.weeklyRevenue, row(p), json(p)]);
-  bulkInsert(connection, 'network_bom_lines',
+  insertRows(connection, 'network_bom_lines',
     ['version_id', 'parent_code', 'child_code', 'qty_per', 'row', 'attributes'],
     model.bom, (b) => [versionId, b.parentCode, b.childCode, b.qtyPer, row(b), json(b)]);
-  bulkInsert(connection, 'network_suppliers',
+  insertRows(connection, 'network_suppliers',
     ['version_id', 'code', 'name', 'country', 'region', 'recovery_weeks', 'financial_health',
       'delivery_score', 'has_continuity_plan', 'tier', 'row', 'attributes'],
     model.suppliers, (s) => [versionId, s.code, s.name, s.country, s.region, s.recoveryWeeks,
       s.financialHealth, s.deliveryScore, flag(s.hasContinuityPlan), tierOf.get(s.code) ?? null,
       row(s), json(s)]);
-  bulkInsert(connection, 'network_sourcing',
+  insertRows(connection, 'network_sourcing',
     ['version_id', 'buyer_code', 'item_code', 'supplier_code', 'share_pct', 'is_qualified', 'row',
       'attributes'],
     model.sourcing, (r) => [versionId, r.buyerCode, r.itemCode, r.supplierCode, r.sharePct,
       flag(r.isQualified), row(r), json(r)]);
-  bulkInsert(connection, 'network_stock',
+  insertRows(connection, 'network_stock',
     ['version_id', 'plant_code', 'item_code', 'weeks_of_cover', 'row', 'attributes'],
     model.stock, (s) => [versionId, s.plantCode, s.itemCode, s.weeksOfCover, row(s), json(s)]);
-  bulkInsert(connection, 'network_items',
+  insertRows(connection, 'network_items',
     ['version_id', 'code', 'holder_code', 'holder_kind', 'kind', 'qualified_sources', 'used_in',
       'weeks_of_cover'],
     items, (i) => [versionId, i.code, i.holderCode, i.holderKind, i.kind, i.qualifiedSources,
       i.usedIn, i.weeksOfCover ?? null]);
-  bulkInsert(connection, 'network_supplier_plants',
+  insertRows(connection, 'network_supplier_plants',
     ['version_id', 'supplier_code', 'plant_code'],
     served, ([supplierCode, plantCode]) => [versionId, supplierCode, plantCode]);
   return { id: versionId, counts };
-}
-
-/**
- * Inserts rows with one prepared statement run per row: on a transaction's connection this is
- * several times faster than multi-row INSERTs built by the query builder (a 100 000-row
- * Sourcing sheet is measured in `npm run bench`). Column names are constants of this file.
- */
-function bulkInsert<T>(
-  connection: ReturnType<typeof connectionOf>,
-  table: string,
-  columns: readonly string[],
-  records: readonly T[],
-  values: (record: T) => unknown[],
-): void {
-  const placeholders = columns.map(() => '?').join(', ');
-  const statement = connection.prepare(
-    `INSERT INTO ${table} (${columns.join(', ')}) VALUES (${placeholders})`,
-  );
-  for (const record of records) statement.run(values(record));
 }
 
 type DerivedItem = Omit<typeof networkItems.$inferInsert, 'versionId'>;

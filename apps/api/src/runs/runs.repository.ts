@@ -7,6 +7,7 @@ import {
   analysisRuns,
   connectionOf,
   countries,
+  insertRows,
   networkVersions,
   users,
   type AnalysisRunRow,
@@ -101,25 +102,18 @@ export class RunsRepository {
    */
   insertResults(tx: KeelsonDatabase, runId: number, rows: readonly RunRow[]): void {
     const connection = connectionOf(tx);
-    const placeholders = RESULT_COLUMNS.map(() => '?').join(', ');
-    const result = connection.prepare(
-      `INSERT INTO run_suppliers (${RESULT_COLUMNS.join(', ')}) VALUES (${placeholders})`,
-    );
-    const plant = connection.prepare(
-      'INSERT INTO run_supplier_plants (run_id, code, plant_code) VALUES (?, ?, ?)',
-    );
-    for (const row of rows) {
-      result.run([
-        runId, row.code, row.name, row.country, row.region, row.tier, row.rank,
-        JSON.stringify(row.productsLost), row.productsLost.length, JSON.stringify(row.plants),
-        row.revenueExposedPerWeek, row.revenueImpact, row.timeToRecover,
-        row.singlePointOfFailure ? 1 : 0, row.betweenness, row.degree, row.closeness,
-        row.eigenvector, row.pagerank, row.nexusIndex, JSON.stringify(row.products),
-        row.likelihood, JSON.stringify(row.likelihoodFactors), row.impactBand, row.rating,
-        row.ratingBand,
-      ]);
-      for (const plantCode of row.plants) plant.run([runId, row.code, plantCode]);
-    }
+    insertRows(connection, 'run_suppliers', RESULT_COLUMNS, rows, (row) => [
+      runId, row.code, row.name, row.country, row.region, row.tier, row.rank,
+      JSON.stringify(row.productsLost), row.productsLost.length, JSON.stringify(row.plants),
+      row.revenueExposedPerWeek, row.revenueImpact, row.timeToRecover,
+      row.singlePointOfFailure ? 1 : 0, row.betweenness, row.degree, row.closeness,
+      row.eigenvector, row.pagerank, row.nexusIndex, JSON.stringify(row.products),
+      row.likelihood, JSON.stringify(row.likelihoodFactors), row.impactBand, row.rating,
+      row.ratingBand,
+    ]);
+    const plants = rows.flatMap((row) => row.plants.map((plantCode) => [row.code, plantCode]));
+    insertRows(connection, 'run_supplier_plants', ['run_id', 'code', 'plant_code'], plants,
+      ([code, plantCode]) => [runId, code, plantCode]);
   }
 
   private select() {
