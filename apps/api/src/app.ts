@@ -21,10 +21,13 @@ import { createMailRouter } from './mail/mail.router';
 import { MailRepository } from './mail/mail.repository';
 import { MailService } from './mail/mail.service';
 import type { Mailer } from './mail/mailer';
+import { mountAuditRoutes } from './audit/audit.module';
 import { mountImportRoutes } from './imports/imports.module';
 import { NetworkGraphCache } from './network/network-graph-cache';
 import { mountNetworkRoutes } from './network/network.module';
 import { mountNetworkPictureRoutes } from './network-picture/network-picture.module';
+import { mountNotificationRoutes } from './notifications/notifications.module';
+import { mountPlanRoutes } from './plans/plans.module';
 import { mountRegisterRoutes } from './register/register.module';
 import { mountRunRoutes } from './runs/runs.module';
 import { createPlantsRouter } from './plants/plants.router';
@@ -51,6 +54,8 @@ export interface AppDeps {
 export interface KeelsonApp {
   app: Express;
   services: { auth: AuthService; users: UsersService; plants: PlantsService; mail: MailService };
+  /** Stops what the features started (schedulers); the server calls it before closing. */
+  close(): Promise<void>;
 }
 
 /**
@@ -105,17 +110,28 @@ export function createKeelsonApp(deps: AppDeps): KeelsonApp {
   app.use('/api/users', createUsersRouter(users));
   app.use('/api/plants', createPlantsRouter(plants));
   app.use('/api/admin/mail', createMailRouter(mail));
+  const closers: (() => void | Promise<void>)[] = [];
   const featureDeps = { config, db, logger: deps.logger, now, plants: plantsRepository,
-    graphs: new NetworkGraphCache(db) };
+    graphs: new NetworkGraphCache(db), mailer: deps.mailer,
+    onClose: (close: () => void | Promise<void>) => void closers.push(close) };
   mountImportRoutes(app, featureDeps);
   mountNetworkRoutes(app, featureDeps);
   mountRunRoutes(app, featureDeps);
   mountRegisterRoutes(app, featureDeps);
   mountNetworkPictureRoutes(app, featureDeps);
+  const planEvents = mountNotificationRoutes(app, featureDeps);
+  mountPlanRoutes(app, featureDeps, planEvents);
+  mountAuditRoutes(app, featureDeps);
   app.use('/api', apiNotFoundHandler);
   serveWebClient(app, config.webRoot);
   app.use(errorHandler);
-  return { app, services: { auth, users, plants, mail } };
+  return {
+    app,
+    services: { auth, users, plants, mail },
+    async close() {
+      for (const close of closers.splice(0).reverse()) await close();
+    },
+  };
 }
 
 /** The Express app alone (see {@link createKeelsonApp}). */

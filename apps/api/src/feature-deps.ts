@@ -1,6 +1,7 @@
 import type { Logger } from 'pino';
 import type { KeelsonDatabase } from '@keelson/db';
 import type { AppConfig } from './config/app-config';
+import type { Mailer } from './mail/mailer';
 import type { NetworkGraphCache } from './network/network-graph-cache';
 import type { PlantsRepository } from './plants/plants.repository';
 
@@ -14,4 +15,8 @@ export interface FeatureDeps {
   plants: PlantsRepository;
   /** Built supply graphs of recent network versions, shared by every feature. */
   graphs: NetworkGraphCache;
+  /** Sends e-mail (the local sink in demo mode and tests). */
+  mailer: Mailer;
+  /** Registers a clean-up (a scheduler to stop) that runs when the app closes. */
+  onClose: (close: () => void | Promise<void>) => void;
 }

@@ -3,7 +3,7 @@ import type { AddressInfo } from 'node:net';
 import type { Express } from 'express';
 import type { Logger } from 'pino';
 import { openDatabase, type KeelsonDatabase } from '@keelson/db';
-import { createKeelsonApp } from './app';
+import { createKeelsonApp, type KeelsonApp } from './app';
 import type { LoginRateLimits } from './auth/login-rate-limits';
 import { createPasswordHasher } from './auth/password-hasher';
 import { loadConfig, type AppConfig, type ConfigOverrides } from './config/app-config';
@@ -54,6 +54,7 @@ export async function startServer(options: StartServerOptions = {}): Promise<Run
   const database = openDatabase(config.databasePath);
   let mailSink: MailSink | null = null;
   let server: Server | undefined;
+  let keelson: KeelsonApp | undefined;
   try {
     mailSink = config.smtpUrl
       ? null
@@ -77,13 +78,15 @@ export async function startServer(options: StartServerOptions = {}): Promise<Run
         logger.info(seeded, 'seeded the demo workspace (password keelson-demo)');
       }
     }
-    const { app, services } = createKeelsonApp({
+    keelson = createKeelsonApp({
       config,
       db: database.db,
       mailer,
       logger,
       rateLimits,
     });
+    const { app, services } = keelson;
+    const started = keelson;
     server = await listen(app, config.host, config.port);
     const port = (server.address() as AddressInfo).port;
     if (config.isPublicUrlDerived) {
@@ -116,6 +119,7 @@ export async function startServer(options: StartServerOptions = {}): Promise<Run
             running.close(() => resolve());
             running.closeAllConnections();
           });
+          await started.close();
           mailer.close();
           await mailSink?.stop();
           database.close();
@@ -125,6 +129,7 @@ export async function startServer(options: StartServerOptions = {}): Promise<Run
     };
   } catch (error) {
     server?.close();
+    await keelson?.close();
     await mailSink?.stop();
     database.close();
     throw error;

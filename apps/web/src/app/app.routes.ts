@@ -56,6 +56,26 @@ export const routes: Routes = [
         loadChildren: () => import('./register/register.routes').then((m) => m.registerRoutes),
       },
       {
+        path: 'plans',
+        canActivate: [navigationGuard('register')],
+        loadChildren: () => import('./plans/plans.routes').then((m) => m.plansRoutes),
+      },
+      {
+        path: 'approvals',
+        canActivate: [navigationGuard('approvals')],
+        loadChildren: () => import('./plans/approvals.routes').then((m) => m.approvalsRoutes),
+      },
+      {
+        path: 'tasks',
+        canActivate: [navigationGuard('tasks')],
+        loadChildren: () => import('./plans/tasks.routes').then((m) => m.tasksRoutes),
+      },
+      {
+        path: 'account',
+        canActivate: [navigationGuard('account')],
+        loadChildren: () => import('./account/account.routes').then((m) => m.accountRoutes),
+      },
+      {
         path: 'admin',
         loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes),
       },

@@ -9,19 +9,21 @@ import {
 } from './navigation';
 
 // Expected entries per role, written out by hand from the product brief (Home and Network for
-// all; Import for buyers and administrators; Users, Sent mail and Countries for administrators),
+// all; Import for buyers and administrators; Approvals for those who decide on or draft plans;
+// My tasks and E-mail settings for all; the admin pages for administrators),
 // not derived from NAVIGATION itself.
 const EXPECTED: Record<Role, string[]> = {
   admin: ['Home', 'Import', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register', 'Users', 'Sent mail', 'Countries', 'Scoring'],
+    'Risk register', 'Approvals', 'My tasks', 'E-mail settings', 'Users', 'Sent mail',
+    'Countries', 'Scoring', 'Audit trail'],
   buyer: ['Home', 'Import', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register'],
+    'Risk register', 'My tasks', 'E-mail settings'],
   risk_manager: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register'],
+    'Risk register', 'Approvals', 'My tasks', 'E-mail settings'],
   plant_manager: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register'],
+    'Risk register', 'Approvals', 'My tasks', 'E-mail settings'],
   viewer: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register'],
+    'Risk register', 'My tasks', 'E-mail settings'],
 };
 
 describe('navigationFor', () => {

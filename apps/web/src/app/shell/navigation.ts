@@ -30,11 +30,18 @@ export const NAVIGATION = [
     owns: /^risk\/\d+\/suppliers\// },
   { label: 'Scenarios', icon: 'thunderstorm', path: 'runs/scenarios', roles: ROLES },
   { label: 'Network picture', icon: 'hub', path: 'risk', roles: ROLES },
-  { label: 'Risk register', icon: 'fact_check', path: 'register', roles: ROLES },
+  // A plan's page (/plans/:id) is part of its register entry.
+  { label: 'Risk register', icon: 'fact_check', path: 'register', roles: ROLES,
+    owns: /^plans\// },
+  { label: 'Approvals', icon: 'approval', path: 'approvals',
+    roles: ['plant_manager', 'risk_manager', 'admin'] },
+  { label: 'My tasks', icon: 'task_alt', path: 'tasks', roles: ROLES },
+  { label: 'E-mail settings', icon: 'mark_email_read', path: 'account', roles: ROLES },
   { label: 'Users', icon: 'manage_accounts', path: 'admin/users', roles: ['admin'] },
   { label: 'Sent mail', icon: 'outgoing_mail', path: 'admin/mail', roles: ['admin'] },
   { label: 'Countries', icon: 'public', path: 'admin/countries', roles: ['admin'] },
   { label: 'Scoring', icon: 'tune', path: 'admin/scoring', roles: ['admin'] },
+  { label: 'Audit trail', icon: 'history', path: 'admin/audit', roles: ['admin'] },
 ] as const satisfies readonly NavigationEntry[];
 
 /** A path that has an entry in {@link NAVIGATION}. */
