@@ -9,7 +9,7 @@ let database: OpenDatabase | undefined;
 afterEach(() => database?.close());
 
 describe('seedDemoWorkspace', () => {
-  it('seeds three plants and six accounts into an empty database, then afterSeed', async () => {
+  it('seeds three plants and seven accounts into an empty database, then afterSeed', async () => {
     database = openDatabase(IN_MEMORY);
     const calls: number[] = [];
     const result = await seedDemoWorkspace(database.db, {
@@ -18,9 +18,9 @@ describe('seedDemoWorkspace', () => {
         calls.push(database!.sqlite.prepare('select count(*) from users').pluck().get() as number);
       },
     });
-    expect(result).toEqual({ isSeeded: true, plants: 3, accounts: 6 });
+    expect(result).toEqual({ isSeeded: true, plants: 3, accounts: 7 });
     // afterSeed ran once, after the accounts existed.
-    expect(calls).toEqual([6]);
+    expect(calls).toEqual([7]);
     const plants = database.sqlite.prepare('select code, name, country from plants order by code');
     expect(plants.all()).toEqual([
       { code: 'P-EAST', name: 'Dravik Works', country: 'PL' },
@@ -34,6 +34,7 @@ describe('seedDemoWorkspace', () => {
       )
       .all();
     expect(links).toEqual([
+      { email: 'plant.east@demo.test', plant_code: 'P-EAST' },
       { email: 'plant.north@demo.test', plant_code: 'P-NORTH' },
       { email: 'plant.south@demo.test', plant_code: 'P-SOUTH' },
     ]);
@@ -70,7 +71,7 @@ describe('seedDemoWorkspace', () => {
     });
     expect(again.isSeeded).toBe(false);
     expect(isHookCalled).toBe(false);
-    expect(database.sqlite.prepare('select count(*) from users').pluck().get()).toBe(6);
+    expect(database.sqlite.prepare('select count(*) from users').pluck().get()).toBe(7);
     const name = database.sqlite
       .prepare("select name from users where email = 'admin@demo.test'")
       .pluck()

@@ -37,6 +37,12 @@ export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
     role: 'plant_manager',
     plantCodes: ['P-SOUTH'],
   },
+  {
+    email: 'plant.east@demo.test',
+    name: 'Tomasz Halwe',
+    role: 'plant_manager',
+    plantCodes: ['P-EAST'],
+  },
   { email: 'viewer@demo.test', name: 'Vera Novak', role: 'viewer', plantCodes: [] },
 ];
 

@@ -36,7 +36,7 @@ describe('GET /api/users', () => {
   it('lists every demo user sorted by name, with plants for plant managers', async () => {
     const response = await listUsers('');
     expect(response.status).toBe(200);
-    expect(response.body.total).toBe(6);
+    expect(response.body.total).toBe(7);
     const names = response.body.items.map((user: UserDto) => user.name);
     expect(names).toEqual([...names].sort((a, b) => a.localeCompare(b)));
     const pia = response.body.items.find((user: UserDto) => user.name === 'Pia Lindqvist');
@@ -46,6 +46,7 @@ describe('GET /api/users', () => {
   it('filters by role and by text in name or e-mail', async () => {
     const managers = await listUsers('role=plant_manager');
     expect(managers.body.items.map((user: UserDto) => user.email).sort()).toEqual([
+      'plant.east@demo.test',
       'plant.north@demo.test',
       'plant.south@demo.test',
     ]);
@@ -59,7 +60,7 @@ describe('GET /api/users', () => {
 
   it('sorts by e-mail descending and pages', async () => {
     const response = await listUsers('sort=email&order=desc&limit=2&offset=1');
-    expect(response.body.total).toBe(6);
+    expect(response.body.total).toBe(7);
     expect(response.body.items.map((user: UserDto) => user.email)).toEqual([
       'risk@demo.test',
       'plant.south@demo.test',

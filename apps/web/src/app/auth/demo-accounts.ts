@@ -12,7 +12,7 @@ export interface DemoAccount {
   readonly note: string;
 }
 
-/** The accounts the server seeds in demo mode, one per role (two plant managers). */
+/** The accounts the server seeds in demo mode, one per role (a plant manager per plant). */
 export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
   { email: 'admin@demo.test', name: 'Alma Reyes', role: 'admin', note: 'users and sent mail' },
   { email: 'buyer@demo.test', name: 'Bruno Keller', role: 'buyer', note: 'imports suppliers' },
@@ -33,6 +33,12 @@ export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
     name: 'Sergio Marin',
     role: 'plant_manager',
     note: 'Castellar Works',
+  },
+  {
+    email: 'plant.east@demo.test',
+    name: 'Tomasz Halwe',
+    role: 'plant_manager',
+    note: 'Dravik Works',
   },
   { email: 'viewer@demo.test', name: 'Vera Novak', role: 'viewer', note: 'reads everything' },
 ];
