@@ -114,7 +114,7 @@ describe('SignInPage', () => {
   it('offers the demo accounts in demo mode and fills the form from one', async () => {
     const root = await create('demo');
     const accounts = [...root.querySelectorAll<HTMLButtonElement>('.sign-in__account')];
-    expect(accounts).toHaveLength(6);
+    expect(accounts).toHaveLength(7);
     accounts.find((button) => button.textContent?.includes('plant.south@demo.test'))!.click();
     await fixture.whenStable();
     expect(root.querySelector<HTMLInputElement>('input[type="email"]')!.value).toBe(
