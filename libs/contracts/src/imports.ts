@@ -112,6 +112,12 @@ export const saveImportMappingSchema = z.object({
 /** POST /api/import-mappings body. */
 export type SaveImportMappingInput = z.infer<typeof saveImportMappingSchema>;
 
+/** GET /api/imports/limits answer: what the server accepts, for the upload screen to state. */
+export interface ImportLimitsDto {
+  /** The largest upload in bytes (the server's UPLOAD_MAX_BYTES). */
+  uploadMaxBytes: number;
+}
+
 /** An upload and what became of it. */
 export interface ImportBatchDto {
   id: number;

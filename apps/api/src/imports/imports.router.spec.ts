@@ -195,6 +195,15 @@ describe('GET /api/imports', () => {
   });
 });
 
+describe('GET /api/imports/limits', () => {
+  it('states the configured upload limit, and only to signed-in users', async () => {
+    const response = await api().get('/api/imports/limits').set(bearer(t));
+    expect(response.status).toBe(200);
+    expect(response.body).toEqual({ uploadMaxBytes: 64 * 1024 });
+    expect((await api().get('/api/imports/limits')).status).toBe(401);
+  });
+});
+
 describe('GET /api/imports/template.xlsx', () => {
   it('downloads the empty template with its Read me sheet', async () => {
     const { response, workbook } = await downloadWorkbook(t, '/api/imports/template.xlsx',

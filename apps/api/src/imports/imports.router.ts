@@ -5,6 +5,7 @@ import {
   listImportBatchesQuerySchema,
   listImportProblemsQuerySchema,
   workbookMappingSchema,
+  type ImportLimitsDto,
   type Role,
   type WorkbookMapping,
 } from '@keelson/contracts';
@@ -55,6 +56,15 @@ export function createImportsRouter(service: ImportsService, options: ImportsRou
     roles: SIGNED_IN,
     handler: async (_req, res) => {
       sendXlsx(res, 'keelson-template.xlsx', await service.template());
+    },
+  });
+  route(router, {
+    method: 'get',
+    path: '/limits',
+    roles: SIGNED_IN,
+    handler: (_req, res) => {
+      const limits: ImportLimitsDto = { uploadMaxBytes: options.uploadMaxBytes };
+      res.json(limits);
     },
   });
   route(router, {

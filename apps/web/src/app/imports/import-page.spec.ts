@@ -89,9 +89,16 @@ describe('ImportPage', () => {
     fixture = TestBed.createComponent(ImportPage);
     root = fixture.nativeElement as HTMLElement;
     await settle();
+    backend.expectOne('/api/imports/limits').flush({ uploadMaxBytes: 5 * 1024 * 1024 });
+    await settle();
   });
 
   afterEach(() => backend.verify());
+
+  it("states the server's upload limit, not the usual default", () => {
+    expect(root.textContent).toContain('up to 5 MB');
+    expect(root.textContent).not.toContain('20 MB');
+  });
 
   it('starts at the upload step with the later steps closed', () => {
     expect(stepTitle()).toBe('Step 1 of 4: Upload');

@@ -17,11 +17,12 @@ import { MatIcon } from '@angular/material/icon';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import type { ImportBatchDto, ImportCommitDto } from '@keelson/contracts';
-import type { Subscription } from 'rxjs';
+import { type Subscription, catchError, map, of } from 'rxjs';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { apiErrorMessage } from '../shared/api-error-message';
 import { CheckStep } from './check-step';
 import { CommitStep } from './commit-step';
-import { formatFileSize } from './file-size';
+import { DEFAULT_UPLOAD_LIMIT_BYTES, formatFileSize } from './file-size';
 import { ImportStatusChip } from './import-status-chip';
 import { ImportsApi } from './imports-api';
 import { MappingStep } from './mapping-step';
@@ -89,6 +90,14 @@ export class ImportPage {
     return batch.status === 'committed' ? null : batch.suggestedMapping;
   });
   protected readonly formatFileSize = formatFileSize;
+  /** The server's upload limit; the usual default until (or unless) the server says. */
+  protected readonly uploadLimitBytes = toSignal(
+    this.importsApi.limits().pipe(
+      map((limits) => limits.uploadMaxBytes),
+      catchError(() => of(DEFAULT_UPLOAD_LIMIT_BYTES)),
+    ),
+    { initialValue: DEFAULT_UPLOAD_LIMIT_BYTES },
+  );
 
   constructor() {
     effect(() => {

@@ -10,6 +10,7 @@ import type {
   CheckImportInput,
   ImportBatchDto,
   ImportCommitDto,
+  ImportLimitsDto,
   ImportProblemDto,
   ImportStatus,
   ListImportProblemsQuery,
@@ -119,6 +120,11 @@ export class ImportsApi {
   /** Where the batch's error report (xlsx) downloads from. */
   errorReportUrl(id: number): string {
     return `/api/imports/${id}/error-report.xlsx`;
+  }
+
+  /** GET /api/imports/limits: the server's upload limit. */
+  limits(): Observable<ImportLimitsDto> {
+    return this.http.get<ImportLimitsDto>('/api/imports/limits');
   }
 
   /** Where the empty template (xlsx) downloads from. */
