@@ -145,9 +145,10 @@ function addSource(model: SupplyModel, planSupplier: string, change: AddSource, 
       refuse(at('supplierCode'), `${supplierCode} is already a supplier of the network; ` +
         'leave out newSupplier to add it as a source');
     }
-    if (kindOfCode(model, supplierCode) !== null) {
-      refuse(at('supplierCode'), `${supplierCode} is already a ${kindOfCode(model, supplierCode)} ` +
-        'code of the network; a new supplier needs a code of its own');
+    const kind = kindOfCode(model, supplierCode);
+    if (kind !== null) {
+      refuse(at('supplierCode'), `${supplierCode} is already a ${kind} code of the network; ` +
+        'a new supplier needs a code of its own');
     }
   } else if (!known) {
     refuse(at('supplierCode'), `the network has no supplier ${supplierCode}; ` +
