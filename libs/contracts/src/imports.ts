@@ -29,6 +29,20 @@ export interface InspectedSheet {
   headers: string[];
   /** Up to 5 non-blank rows below the header row. */
   sampleRows: (string | number | boolean | null)[][];
+  /**
+   * The first non-blank rows of the sheet (up to 25), so the mapping step can preview another
+   * header row the buyer types without asking the server again.
+   */
+  topRows: InspectedRow[];
+}
+
+/** One row of a sheet as the mapping step previews it. */
+export interface InspectedRow {
+  /** The sheet's own 1-based row number. */
+  row: number;
+  cells: (string | number | boolean | null)[];
+  /** The row's non-blank cells as header texts, as the check would read them. */
+  headers: string[];
 }
 
 /** What the file offers for one template sheet. */

@@ -22,7 +22,13 @@ describe('inspectWorkbook', () => {
     const plants = inspection.sheets.find((sheet) => sheet.name === 'Plants');
     expect(plants).toEqual({ name: 'Plants', rowCount: 3, headerRow: 1,
       headers: ['plant_code', 'plant_name', 'country'],
-      sampleRows: [['P1', 'Augsburg', 'DE'], ['P2', 'Suzhou', 'CN']] });
+      sampleRows: [['P1', 'Augsburg', 'DE'], ['P2', 'Suzhou', 'CN']],
+      topRows: [
+        { row: 1, cells: ['plant_code', 'plant_name', 'country'],
+          headers: ['plant_code', 'plant_name', 'country'] },
+        { row: 2, cells: ['P1', 'Augsburg', 'DE'], headers: ['P1', 'Augsburg', 'DE'] },
+        { row: 3, cells: ['P2', 'Suzhou', 'CN'], headers: ['P2', 'Suzhou', 'CN'] },
+      ] });
   });
 
   it('guesses a lower header row, a renamed sheet and renamed columns', async () => {
@@ -45,6 +51,21 @@ describe('inspectWorkbook', () => {
     const sheet = inspection.sheets.find((entry) => entry.name === 'Vendors');
     expect(sheet?.headerRow).toBe(3);
     expect(sheet?.sampleRows).toHaveLength(2);
+    // The first non-blank rows with their own row numbers (row 2 is blank), so the mapping
+    // step can preview another header row.
+    expect(sheet?.topRows.map((row) => row.row)).toEqual([1, 3, 4, 5]);
+    expect(sheet?.topRows[0]!.headers).toEqual(['Vendor master export, 2024-05']);
+  });
+
+  it('sends at most the first 25 non-blank rows of a sheet', async () => {
+    const rows: SheetRows = [['plant_code', 'plant_name', 'country'],
+      ...Array.from({ length: 40 }, (_, index) => [`P${index + 1}`, `Works ${index + 1}`, 'DE'])];
+    const inspection = await inspectWorkbook(await buildXlsx({ ...smallNetworkSheets(),
+      Plants: rows }));
+    const plants = inspection.sheets.find((sheet) => sheet.name === 'Plants')!;
+    expect(plants.rowCount).toBe(41);
+    expect(plants.topRows).toHaveLength(25);
+    expect(plants.topRows.at(-1)).toMatchObject({ row: 25, cells: ['P24', 'Works 24', 'DE'] });
   });
 
   it('lists the required sheets and columns still missing', async () => {

@@ -39,6 +39,8 @@ export interface InspectOptions {
 }
 
 const SAMPLE_ROWS = 5;
+/** How many of a sheet's first non-blank rows the inspection sends for other header rows. */
+export const TOP_ROWS = 25;
 const HEADER_SEARCH_ROWS = 20;
 
 /** Inspects an uploaded file for the mapping step; never throws for bad input. */
@@ -136,9 +138,14 @@ function inspectSheet(sheet: RawSheet, headerRow: number | null): InspectedSheet
   const samples = filled.filter((row) => headerRow === null || row.row > headerRow)
     .slice(0, SAMPLE_ROWS)
     .map((row) => row.cells.map((cell) => reportedValue(cell)));
+  const topRows = filled.slice(0, TOP_ROWS).map((row) => ({
+    row: row.row,
+    cells: row.cells.map((cell) => reportedValue(cell)),
+    headers: headersOf(sheet, row.row),
+  }));
   return {
     name: sheet.name, rowCount: filled.length, headerRow,
-    headers: headerRow === null ? [] : headersOf(sheet, headerRow), sampleRows: samples,
+    headers: headerRow === null ? [] : headersOf(sheet, headerRow), sampleRows: samples, topRows,
   };
 }
 

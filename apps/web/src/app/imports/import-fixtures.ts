@@ -1,6 +1,7 @@
 import type {
   ImportBatchDto,
   ImportCommitDto,
+  InspectedSheet,
   SheetSuggestion,
   WorkbookInspection,
 } from '@keelson/contracts';
@@ -52,12 +53,34 @@ function suggestion(overrides: Partial<SheetSuggestion>): SheetSuggestion {
   };
 }
 
+type SheetWithoutTopRows = Omit<InspectedSheet, 'topRows'>;
+
+/**
+ * A sheet of the inspection with its first rows as the server sends them: a title row above a
+ * header row that is not the first, then the header row, then the sample rows.
+ */
+export function withTopRows(sheet: SheetWithoutTopRows): InspectedSheet {
+  const headerRow = sheet.headerRow ?? 1;
+  const title = headerRow > 1 ? [{ row: 1, cells: [`${sheet.name} export`],
+    headers: [`${sheet.name} export`] }] : [];
+  const rows = [
+    ...title,
+    { row: headerRow, cells: [...sheet.headers], headers: [...sheet.headers] },
+    ...sheet.sampleRows.map((cells, index) => ({
+      row: headerRow + 1 + index,
+      cells,
+      headers: cells.filter((cell) => cell !== null && cell !== '').map((cell) => String(cell)),
+    })),
+  ];
+  return { ...sheet, topRows: rows };
+}
+
 /** What GET /api/imports/41/inspection answers for the batch above. */
 export function inspectionFixture(): WorkbookInspection {
   return {
     format: 'xlsx',
     errors: [],
-    sheets: [
+    sheets: ([
       {
         name: 'Sites',
         rowCount: 3,
@@ -96,7 +119,7 @@ export function inspectionFixture(): WorkbookInspection {
         headers: ['Buyer', 'Part', 'Vendor no', 'Share'],
         sampleRows: [['HB-1', 'IT-4', 'V-7', 60]],
       },
-    ],
+    ] satisfies SheetWithoutTopRows[]).map(withTopRows),
     suggestions: {
       Plants: suggestion({
         sheetName: 'Sites',

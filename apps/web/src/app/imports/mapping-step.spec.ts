@@ -102,6 +102,26 @@ describe('MappingStep', () => {
     expect(root.querySelector('table[aria-label="First rows of Products"]')).not.toBeNull();
   });
 
+  it('previews the row the buyer types as the header row, and says when it is blank', async () => {
+    const headerRow = root.querySelector<HTMLInputElement>('#map-plants-header-row')!;
+    const previewHeads = () => [...root.querySelectorAll(
+      'table[aria-label="First rows of Sites"] th')].map((cell) => cell.textContent!.trim());
+    expect(previewHeads()).toEqual(['Site ID', 'Site', 'Land']);
+    // Row 3 of "Sites" is its first data row (HB-1): the preview takes it as the headers.
+    headerRow.value = '3';
+    headerRow.dispatchEvent(new Event('change'));
+    await settle();
+    expect(previewHeads()).toEqual(['HB-1', 'Harbour Works', 'NL']);
+    const options = [...root.querySelectorAll<HTMLOptionElement>('#map-plants-plant_code option')]
+      .map((option) => option.value);
+    expect(options).toContain('HB-1');
+    headerRow.value = '9';
+    headerRow.dispatchEvent(new Event('change'));
+    await settle();
+    expect(root.querySelector('table[aria-label="First rows of Sites"] tbody')!.textContent)
+      .toContain('Row 9 is blank');
+  });
+
   it('loads a saved mapping through the inspection and can delete it', async () => {
     choose('mapping-saved', '3');
     await settle();

@@ -57,11 +57,13 @@ export class SheetMappingCard {
   protected readonly fileSheet = computed<InspectedSheet | null>(
     () => this.inspection().sheets.find((sheet) => sheet.name === this.entry().sheetName) ?? null,
   );
+  /** The preview of the header row chosen now (the file's guess, or the one the buyer typed). */
+  protected readonly preview = computed(() => previewOf(this.fileSheet(), this.entry().headerRow));
   protected readonly headers = computed(() =>
-    (this.fileSheet()?.headers ?? []).filter((header) => header.trim() !== ''),
+    (this.preview()?.headers ?? []).filter((header) => header.trim() !== ''),
   );
   protected readonly sampleRows = computed(() =>
-    (this.fileSheet()?.sampleRows ?? []).slice(0, SAMPLE_ROW_LIMIT),
+    (this.preview()?.sampleRows ?? []).slice(0, SAMPLE_ROW_LIMIT),
   );
   protected readonly missing = computed(() => {
     const columns = this.entry().columns;
@@ -121,4 +123,44 @@ export class SheetMappingCard {
     }
     return String(value);
   }
+}
+
+/** What the card previews of a file sheet for a header row. */
+export interface SheetPreview {
+  name: string;
+  headerRow: number | null;
+  headers: string[];
+  sampleRows: (string | number | boolean | null)[][];
+  /** True when the header row lies below the rows the inspection sent (the check still reads it). */
+  isBeyondPreview: boolean;
+}
+
+/**
+ * The preview of `sheet` with its headers in `headerRow`: the inspection's own headers and
+ * samples for the row it guessed, else the row and the rows below it from the sheet's first
+ * rows. A row past those gives no headers and says so.
+ */
+export function previewOf(sheet: InspectedSheet | null, headerRow: number | null):
+  SheetPreview | null {
+  if (!sheet) {
+    return null;
+  }
+  const base = { name: sheet.name, isBeyondPreview: false };
+  if (headerRow === null || headerRow === sheet.headerRow) {
+    return { ...base, headerRow: sheet.headerRow, headers: sheet.headers,
+      sampleRows: sheet.sampleRows };
+  }
+  const index = sheet.topRows.findIndex((row) => row.row >= headerRow);
+  const chosen = index === -1 ? undefined : sheet.topRows[index];
+  if (!chosen) {
+    // Past the rows sent: the sheet goes on below them, or it ends before this row.
+    const isBeyondPreview = sheet.rowCount > sheet.topRows.length;
+    return { ...base, headerRow, headers: [], sampleRows: [], isBeyondPreview };
+  }
+  if (chosen.row !== headerRow) {
+    // A blank row: no headers there.
+    return { ...base, headerRow, headers: [], sampleRows: [] };
+  }
+  const below = sheet.topRows.slice(index + 1, index + 1 + SAMPLE_ROW_LIMIT);
+  return { ...base, headerRow, headers: chosen.headers, sampleRows: below.map((row) => row.cells) };
 }
