@@ -7,6 +7,7 @@ import {
   type UserRow,
 } from '@keelson/db';
 import type { ListUsersQuery, Role, UserSortField } from '@keelson/contracts';
+import { recordAudit, type AuditEvent } from '../audit/audit-trail';
 
 /** Changes {@link UsersRepository.update} can make. */
 export type UserChanges = Partial<
@@ -128,6 +129,11 @@ export class UsersRepository {
         .where(and(eq(users.role, role), eq(users.isActive, true)))
         .get()?.value ?? 0
     );
+  }
+
+  /** Appends a user or role change to the audit trail (call it inside {@link transaction}). */
+  audit(event: AuditEvent, now: Date): void {
+    recordAudit(this.db, event, now);
   }
 
   /** Runs `work` in one transaction (better-sqlite3 transactions are synchronous). */

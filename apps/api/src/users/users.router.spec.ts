@@ -296,3 +296,39 @@ describe('PATCH /api/users/:id', () => {
     expect(badId.body.error.details.issues[0].path).toBe('params.id');
   });
 });
+
+describe('the audit trail of user administration', () => {
+  const trailOf = (id: number) => t.database.sqlite
+    .prepare(`select action, user_id as userId, before, after from audit_events
+      where subject_type = 'user' and subject_id = ? order by id`)
+    .all(String(id)) as { action: string; userId: number; before: string; after: string }[];
+
+  it('records the invitation and the role change with the acting administrator', async () => {
+    const invited = await api().post('/api/users/invitations').set('Authorization', admin)
+      .send({ email: 'tove@demo.test', name: 'Tove Lund', role: 'viewer', plantCodes: [] });
+    expect(invited.status).toBe(201);
+    const id = (invited.body as { user: UserDto }).user.id;
+    const changed = await api().patch(`/api/users/${id}`).set('Authorization', admin)
+      .send({ role: 'plant_manager', plantCodes: ['P-SOUTH'] });
+    expect(changed.status).toBe(200);
+
+    const events = trailOf(id);
+    const adminId = t.userId('admin@demo.test');
+    expect(events.map((event) => [event.action, event.userId])).toEqual([
+      ['user.invited', adminId], ['user.role_changed', adminId]]);
+    expect(JSON.parse(events[1]!.before)).toEqual({ role: 'viewer', plantCodes: [] });
+    expect(JSON.parse(events[1]!.after)).toEqual({ role: 'plant_manager',
+      plantCodes: ['P-SOUTH'] });
+    const { token } = latestLinkToken('tove@demo.test');
+    expect(JSON.stringify(events)).not.toContain(token);
+  });
+
+  it('records nothing for a refused change', async () => {
+    const id = t.userId('risk@demo.test');
+    const before = trailOf(id).length;
+    const refused = await api().patch(`/api/users/${id}`).set('Authorization', admin)
+      .send({ role: 'buyer', plantCodes: ['P-NORTH'] });
+    expect(refused.status).toBe(400);
+    expect(trailOf(id)).toHaveLength(before);
+  });
+});

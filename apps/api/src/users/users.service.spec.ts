@@ -1,5 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { IN_MEMORY, openDatabase, type OpenDatabase } from '@keelson/db';
+import { asc, eq } from 'drizzle-orm';
+import {
+  IN_MEMORY,
+  auditEvents,
+  openDatabase,
+  plants,
+  users,
+  type OpenDatabase,
+} from '@keelson/db';
 import { AppError } from '../http/app-error';
 import type { SessionUser } from '../http/auth-context';
 import type { Mailer, OutgoingMail } from '../mail/mailer';
@@ -8,8 +16,9 @@ import { InvitationRepository } from './invitation.repository';
 import { UsersRepository } from './users.repository';
 import { UsersService } from './users.service';
 
+// The acting administrator; stored in beforeAll, since the audit trail points at real users.
 const ADMIN: SessionUser = {
-  id: 999,
+  id: 0,
   email: 'admin@x.test',
   name: 'Ada Admin',
   role: 'admin',
@@ -23,6 +32,10 @@ let service: UsersService;
 
 beforeAll(() => {
   database = openDatabase(IN_MEMORY);
+  const stamp = '2026-04-01T09:00:00.000Z';
+  ADMIN.id = database.db.insert(users).values({ email: ADMIN.email, name: ADMIN.name,
+    role: 'admin', passwordHash: 'not-a-real-hash', isActive: true, createdAt: stamp,
+    updatedAt: stamp }).returning().get().id;
   sent = [];
   isMailDown = false;
   const mailer: Mailer = {
@@ -90,5 +103,61 @@ describe('UsersService.invite', () => {
     service.update(ADMIN, user.id, { isActive: false });
     const failure = await service.resendInvitation(ADMIN, user.id).catch((error) => error);
     expect((failure as AppError).code).toBe('user_inactive');
+  });
+});
+
+describe('the audit trail of user changes', () => {
+  const trailOf = (userId: number) => database.db.select().from(auditEvents)
+    .where(eq(auditEvents.subjectId, String(userId))).orderBy(asc(auditEvents.id)).all()
+    .filter((event) => event.subjectType === 'user');
+
+  it('records an invitation with who was invited, as what, and no token', async () => {
+    const user = await service.invite(ADMIN, {
+      email: 'Ivy@X.test', name: 'Ivy', role: 'viewer', plantCodes: [] });
+    const events = trailOf(user.id);
+    expect(events.map((event) => [event.action, event.userId])).toEqual([
+      ['user.invited', ADMIN.id]]);
+    expect(events[0]!.before).toBeNull();
+    expect(events[0]!.after).toEqual({ email: 'ivy@x.test', name: 'Ivy', role: 'viewer',
+      plantCodes: [] });
+    // The set-password link's token is in the e-mail only.
+    const token = /token=([\w-]{43})/.exec(sent.at(-1)!.text)![1]!;
+    expect(JSON.stringify(events)).not.toContain(token);
+  });
+
+  it('records a name edit, role and plant changes, deactivating and reactivating', async () => {
+    database.db.insert(plants).values([{ code: 'P-A', name: 'Plant A', country: 'DE' },
+      { code: 'P-B', name: 'Plant B', country: 'SE' }]).run();
+    const user = await service.invite(ADMIN, {
+      email: 'rolf@x.test', name: 'Rolf', role: 'buyer', plantCodes: [] });
+    service.update(ADMIN, user.id, { name: 'Rolf Berg' });
+    service.update(ADMIN, user.id, { role: 'plant_manager', plantCodes: ['P-B', 'P-A'] });
+    service.update(ADMIN, user.id, { plantCodes: ['P-A'] });
+    service.update(ADMIN, user.id, { isActive: false });
+    service.update(ADMIN, user.id, { isActive: true, name: 'Rolf Berg' });
+
+    const events = trailOf(user.id);
+    expect(events.map((event) => [event.action, event.before, event.after])).toEqual([
+      ['user.invited', null, { email: 'rolf@x.test', name: 'Rolf', role: 'buyer',
+        plantCodes: [] }],
+      ['user.updated', { name: 'Rolf' }, { name: 'Rolf Berg' }],
+      ['user.role_changed', { role: 'buyer', plantCodes: [] },
+        { role: 'plant_manager', plantCodes: ['P-B', 'P-A'] }],
+      ['user.role_changed', { role: 'plant_manager', plantCodes: ['P-A', 'P-B'] },
+        { role: 'plant_manager', plantCodes: ['P-A'] }],
+      ['user.deactivated', { isActive: true }, { isActive: false }],
+      // The unchanged name is not recorded again.
+      ['user.reactivated', { isActive: false }, { isActive: true }],
+    ]);
+    expect(new Set(events.map((event) => event.userId))).toEqual(new Set([ADMIN.id]));
+    expect(JSON.stringify(events)).not.toMatch(/passwordHash|hash/i);
+  });
+
+  it('records nothing when a refused change leaves the user as they were', async () => {
+    const user = await service.invite(ADMIN, {
+      email: 'nia@x.test', name: 'Nia', role: 'viewer', plantCodes: [] });
+    expect(() => service.update(ADMIN, user.id, { role: 'plant_manager', plantCodes: ['P-X'] }))
+      .toThrow(/Unknown plant P-X/);
+    expect(trailOf(user.id).map((event) => event.action)).toEqual(['user.invited']);
   });
 });

@@ -7,6 +7,7 @@ import type {
   UserDto,
 } from '@keelson/contracts';
 import type { UserRow } from '@keelson/db';
+import type { AuditEvent } from '../audit/audit-trail';
 import { AppError, conflict, invalidRequest, notFound } from '../http/app-error';
 import type { SessionUser } from '../http/auth-context';
 import type { Mailer } from '../mail/mailer';
@@ -47,10 +48,12 @@ export class UsersService {
   /**
    * Creates the user without a password and e-mails a set-password link valid for 72 hours.
    * 409 `email_taken` when the address is in use; 400 when the plants do not fit the role.
+   * Records `user.invited` (never the token) in the same transaction as the new user.
    */
   async invite(actor: SessionUser, request: InviteUserRequest): Promise<UserDto> {
     const plantCodes = this.checkPlants(request.role, unique(request.plantCodes));
-    const stamp = this.deps.now().toISOString();
+    const now = this.deps.now();
+    const stamp = now.toISOString();
     const user = this.deps.users.transaction(() => {
       if (this.deps.users.findByEmail(request.email)) {
         throw conflict('email_taken', `There is already a user with e-mail ${request.email}.`);
@@ -65,6 +68,10 @@ export class UsersService {
         updatedAt: stamp,
       });
       this.deps.users.replacePlants(row.id, plantCodes);
+      // Never the invitation token or a password hash: who was invited, as what.
+      this.deps.users.audit({ action: 'user.invited', subjectType: 'user', subjectId: row.id,
+        userId: actorId(actor), before: null,
+        after: { email: row.email, name: row.name, role: row.role, plantCodes } }, now);
       return row;
     });
     await this.sendInvitation(actor, user, false);
@@ -74,6 +81,7 @@ export class UsersService {
   /**
    * Changes name, role, plants or status. An administrator cannot demote or deactivate
    * themself (409 `self_change_refused`); plants must exist and belong to a plant manager.
+   * What really changed is recorded in the audit trail in the same transaction.
    */
   update(actor: SessionUser, id: number, changes: UpdateUserRequest): UserDto {
     const current = this.require(id);
@@ -93,15 +101,21 @@ export class UsersService {
       // A new role keeps the plants only when it is still plant manager.
       plantCodes = this.checkPlants(role, role === 'plant_manager' ? currentPlants : []);
     }
+    const now = this.deps.now();
     const updated = this.deps.users.transaction(() => {
       const row = this.deps.users.update(id, {
         ...(changes.name !== undefined ? { name: changes.name } : {}),
         ...(changes.role !== undefined ? { role: changes.role } : {}),
         ...(changes.isActive !== undefined ? { isActive: changes.isActive } : {}),
-        updatedAt: this.deps.now().toISOString(),
+        updatedAt: now.toISOString(),
       });
       if (plantCodes !== undefined) {
         this.deps.users.replacePlants(id, plantCodes);
+      }
+      const after = { role: row!.role, plantCodes: plantCodes ?? currentPlants };
+      for (const event of userChangeEvents(current, currentPlants, row!, after.plantCodes)) {
+        this.deps.users.audit({ ...event, subjectType: 'user', subjectId: id,
+          userId: actorId(actor) }, now);
       }
       return row!;
     });
@@ -194,6 +208,44 @@ export class UsersService {
   private dto(row: UserRow): UserDto {
     return toUserDto(row, this.deps.users.plantCodesOf([row.id]).get(row.id) ?? []);
   }
+}
+
+/** The audit's user id of an actor; the set-up actor (id 0) is the system. */
+function actorId(actor: SessionUser): number | null {
+  return actor.id > 0 ? actor.id : null;
+}
+
+type UserChangeEvent = Pick<AuditEvent, 'action' | 'before' | 'after'>;
+
+/**
+ * The audit events of one update, only for what really changed: `user.updated` (name),
+ * `user.role_changed` (role or plants, both before and after), `user.deactivated` or
+ * `user.reactivated`.
+ */
+function userChangeEvents(
+  before: UserRow,
+  plantsBefore: readonly string[],
+  after: UserRow,
+  plantsAfter: readonly string[],
+): UserChangeEvent[] {
+  const events: UserChangeEvent[] = [];
+  if (after.name !== before.name || after.email !== before.email) {
+    const keys = (['name', 'email'] as const).filter((key) => after[key] !== before[key]);
+    events.push({ action: 'user.updated',
+      before: Object.fromEntries(keys.map((key) => [key, before[key]])),
+      after: Object.fromEntries(keys.map((key) => [key, after[key]])) });
+  }
+  const samePlants = [...plantsBefore].sort().join() === [...plantsAfter].sort().join();
+  if (after.role !== before.role || !samePlants) {
+    events.push({ action: 'user.role_changed',
+      before: { role: before.role, plantCodes: [...plantsBefore] },
+      after: { role: after.role, plantCodes: [...plantsAfter] } });
+  }
+  if (after.isActive !== before.isActive) {
+    events.push({ action: after.isActive ? 'user.reactivated' : 'user.deactivated',
+      before: { isActive: before.isActive }, after: { isActive: after.isActive } });
+  }
+  return events;
 }
 
 function unique(values: readonly string[]): string[] {
