@@ -135,4 +135,32 @@ describe('loadConfig', () => {
     expect(config.jwtSecret).toBe('s'.repeat(64));
     expect(statSync(file).mode & 0o777).toBe(0o600);
   });
+
+  it('schedules the digest on Mondays 07:00 UTC by default, off in test mode', () => {
+    const demo = loadConfig({ DATABASE_PATH: join(dataFolder(), 'k.db') });
+    expect([demo.digestSchedule, demo.digestTimeZone]).toEqual(['0 7 * * 1', 'UTC']);
+    const test = loadConfig({ KEELSON_MODE: 'test', DATABASE_PATH: ':memory:' });
+    expect([test.digestSchedule, test.digestTimeZone]).toEqual([null, 'UTC']);
+  });
+
+  it('reads KEELSON_DIGEST_CRON and KEELSON_DIGEST_TZ, and "off" switches the digest off', () => {
+    const base = { KEELSON_MODE: 'test', DATABASE_PATH: ':memory:' };
+    const config = loadConfig({ ...base, KEELSON_DIGEST_CRON: '30 6 * * 1-5',
+      KEELSON_DIGEST_TZ: 'Europe/Berlin' });
+    expect([config.digestSchedule, config.digestTimeZone]).toEqual(['30 6 * * 1-5',
+      'Europe/Berlin']);
+    const demo = { DATABASE_PATH: join(dataFolder(), 'k.db') };
+    expect(loadConfig({ ...demo, KEELSON_DIGEST_CRON: 'OFF' }).digestSchedule).toBeNull();
+    expect(loadConfig(base, { digestSchedule: '0 8 * * 1' }).digestSchedule).toBe('0 8 * * 1');
+  });
+
+  it('refuses a bad digest cron expression or time zone, naming the variable', () => {
+    const base = { KEELSON_MODE: 'test', DATABASE_PATH: ':memory:' };
+    expect(() => loadConfig({ ...base, KEELSON_DIGEST_CRON: '61 7 * * 1' }))
+      .toThrow(/KEELSON_DIGEST_CRON: must be a cron expression.*minute/);
+    expect(() => loadConfig({ ...base, KEELSON_DIGEST_CRON: 'every monday' }))
+      .toThrow(/KEELSON_DIGEST_CRON/);
+    expect(() => loadConfig({ ...base, KEELSON_DIGEST_TZ: 'Mars/Olympus' }))
+      .toThrow(/KEELSON_DIGEST_TZ: must be an IANA time zone/);
+  });
 });

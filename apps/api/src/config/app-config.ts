@@ -1,5 +1,6 @@
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import cron from 'node-cron';
 import { z } from 'zod';
 import { KEELSON_MODES, type KeelsonMode } from '@keelson/contracts';
 import { resolveJwtSecret } from './jwt-secret';
@@ -55,7 +56,18 @@ export interface AppConfig {
    * limits see the client's address behind a reverse proxy. Null (the default) trusts none.
    */
   trustProxy: number | string | null;
+  /**
+   * KEELSON_DIGEST_CRON: when the weekly digest of overdue tasks goes out, as a cron expression
+   * (5 fields, or 6 with seconds first). Null (`off`) starts no schedule. Default `0 7 * * 1`
+   * (Mondays 07:00), except in test mode, where it is off so test apps start no timers.
+   */
+  digestSchedule: string | null;
+  /** KEELSON_DIGEST_TZ: the IANA time zone {@link AppConfig.digestSchedule} is read in (`UTC`). */
+  digestTimeZone: string;
 }
+
+/** The digest's schedule when KEELSON_DIGEST_CRON is not set: Mondays at 07:00. */
+export const DEFAULT_DIGEST_SCHEDULE = '0 7 * * 1';
 
 /** Values a caller (tests, `startServer`) may set directly, winning over the environment. */
 export type ConfigOverrides = Partial<
@@ -72,6 +84,8 @@ export type ConfigOverrides = Partial<
     | 'uploadMaxBytes'
     | 'logLevel'
     | 'webRoot'
+    | 'digestSchedule'
+    | 'digestTimeZone'
   >
 >;
 
@@ -109,6 +123,28 @@ const environmentSchema = z.object({
     z
       .string()
       .regex(/^[\w.:/, -]+$/, 'must be a hop count, "loopback" or a list of addresses')
+      .optional(),
+  ),
+  KEELSON_DIGEST_CRON: optionalText.pipe(
+    z
+      .string()
+      .superRefine((value, context) => {
+        if (value.toLowerCase() === 'off') return;
+        const { valid, errors } = cron.validateDetailed(value);
+        if (!valid) {
+          const reasons = errors.map((error) => error.message).join('; ');
+          context.addIssue({
+            code: 'custom',
+            message: `must be a cron expression such as "0 7 * * 1", or "off" (${reasons})`,
+          });
+        }
+      })
+      .optional(),
+  ),
+  KEELSON_DIGEST_TZ: optionalText.pipe(
+    z
+      .string()
+      .refine(isTimeZone, 'must be an IANA time zone such as "UTC" or "Europe/Berlin"')
       .optional(),
   ),
 });
@@ -177,7 +213,28 @@ export function loadConfig(
     demoPassword: mode === 'demo' ? DEMO_PASSWORD : null,
     firstAdminEmail: vars.KEELSON_ADMIN_EMAIL ?? null,
     trustProxy: parseTrustProxy(vars.TRUST_PROXY),
+    digestSchedule: digestScheduleOf(overrides.digestSchedule, vars.KEELSON_DIGEST_CRON, mode),
+    digestTimeZone: overrides.digestTimeZone ?? vars.KEELSON_DIGEST_TZ ?? 'UTC',
   };
+}
+
+function digestScheduleOf(
+  override: string | null | undefined,
+  given: string | undefined,
+  mode: KeelsonMode,
+): string | null {
+  if (override !== undefined) return override;
+  if (given === undefined) return mode === 'test' ? null : DEFAULT_DIGEST_SCHEDULE;
+  return given.toLowerCase() === 'off' ? null : given;
+}
+
+function isTimeZone(zone: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en', { timeZone: zone });
+    return true;
+  } catch {
+    return false;
+  }
 }
 
 function parseTrustProxy(value: string | undefined): number | string | null {
