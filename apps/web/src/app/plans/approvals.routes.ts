@@ -1,4 +1,10 @@
 import type { Routes } from '@angular/router';
 
-/** Filled in by the plans screens. */
-export const approvalsRoutes: Routes = [];
+/** Approvals of mitigation plans (guarded by the `approvals` navigation entry). */
+export const approvalsRoutes: Routes = [
+  {
+    path: '',
+    title: 'Approvals · Keelson',
+    loadComponent: () => import('./approvals-page').then((m) => m.ApprovalsPage),
+  },
+];

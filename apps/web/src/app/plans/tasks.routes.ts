@@ -1,4 +1,10 @@
 import type { Routes } from '@angular/router';
 
-/** Filled in by the plans screens. */
-export const tasksRoutes: Routes = [];
+/** My tasks (guarded by the `tasks` navigation entry; everyone signed in). */
+export const tasksRoutes: Routes = [
+  {
+    path: '',
+    title: 'My tasks · Keelson',
+    loadComponent: () => import('./my-tasks-page').then((m) => m.MyTasksPage),
+  },
+];

@@ -9,10 +9,11 @@ import { TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { RegisterEntryDetailDto, Role } from '@keelson/contracts';
+import type { PlanSummaryDto, RegisterEntryDetailDto, Role } from '@keelson/contracts';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { apiInterceptor } from '../auth/api-interceptor';
 import { Session } from '../auth/session';
+import { planSummary } from '../plans/plan-fixtures';
 import { userWithRole } from '../testing/user-fixtures';
 import { registerEntryDetail } from './register-fixtures';
 import { RegisterEntryPage } from './register-entry-page';
@@ -52,7 +53,11 @@ describe('RegisterEntryPage', () => {
     return backend.expectOne('/api/register/12');
   }
 
-  async function open(role: Role, entry = ENTRY): Promise<void> {
+  async function open(
+    role: Role,
+    entry = ENTRY,
+    plans: PlanSummaryDto[] = [],
+  ): Promise<void> {
     TestBed.inject(Session).signIn(userWithRole(role));
     harness = await RouterTestingHarness.create('/register/12');
     root = harness.routeNativeElement!;
@@ -64,6 +69,7 @@ describe('RegisterEntryPage', () => {
         .flush({ items: [userWithRole('admin'), userWithRole('risk_manager')], total: 2 });
     }
     expectEntry().flush(entry);
+    backend.expectOne('/api/register/12/plans').flush({ items: plans, total: plans.length });
     await settle();
   }
 
@@ -123,6 +129,30 @@ describe('RegisterEntryPage', () => {
       );
     },
   );
+
+  it('lists the entry\'s mitigation plans; risk managers may draft one', async () => {
+    await open('risk_manager', ENTRY, [
+      planSummary(7, { status: 'submitted', pendingPlants: ['P-SOUTH'] }),
+      planSummary(4, { strategy: 'safety_stock', status: 'withdrawn' }),
+    ]);
+    const table = root.querySelector('table[aria-label="Mitigation plans"]')!;
+    const rows = [...table.querySelectorAll('tbody tr')].map((row) =>
+      [...row.querySelectorAll('td')].slice(0, 3).map(words));
+    expect(rows).toEqual([
+      ['Plan 7: Second source', 'Waiting for approval', 'P-SOUTH'],
+      ['Plan 4: Safety stock', 'Withdrawn', '—'],
+    ]);
+    expect(table.querySelector('a')!.getAttribute('href')).toBe('/plans/7');
+    const draft = [...root.querySelectorAll('a')]
+      .find((link) => words(link) === 'add Draft a plan');
+    expect(draft!.getAttribute('href')).toBe('/plans/new?entry=12');
+  });
+
+  it('offers no "Draft a plan" to a buyer, and says when there is no plan', async () => {
+    await open('buyer');
+    expect(words(root)).not.toContain('Draft a plan');
+    expect(words(root)).toContain('No plan yet.');
+  });
 
   it('saves only the changed fields with PATCH, then reads the entry again', async () => {
     await open('risk_manager');

@@ -22,14 +22,18 @@ import { MatSelect } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import type {
-  RegisterEntryDetailDto,
-  RegisterStatus,
-  UpdateRegisterEntryInput,
+import {
+  PLAN_STRATEGY_LABELS,
+  type PlanSummaryDto,
+  type RegisterEntryDetailDto,
+  type RegisterStatus,
+  type UpdateRegisterEntryInput,
 } from '@keelson/contracts';
 import { catchError, of } from 'rxjs';
 import { Session } from '../auth/session';
 import { NetworkVersionsApi } from '../network/network-versions-api';
+import { PlanStatusChip } from '../plans/plan-status-chip';
+import { PlansApi } from '../plans/plans-api';
 import { apiErrorMessage } from '../shared/api-error-message';
 import { OverrideDialog } from './override-dialog';
 import { ownerOptions } from './owner-options';
@@ -42,7 +46,8 @@ import { StatusChip } from './status-chip';
 /**
  * One register entry: supplier, plants, owner, status and notes (editable by risk managers and
  * admins), its score with the computed likelihood and any override, "Override likelihood", and
- * the history of overrides. Everyone else sees it read-only.
+ * the history of overrides, and its mitigation plans ("Draft a plan" for risk managers and
+ * admins). Everyone else sees it read-only.
  */
 @Component({
   selector: 'kl-register-entry-page',
@@ -59,6 +64,7 @@ import { StatusChip } from './status-chip';
     MatProgressBar,
     MatSelect,
     MatTableModule,
+    PlanStatusChip,
     RatingChip,
     ReactiveFormsModule,
     RouterLink,
@@ -73,6 +79,7 @@ export class RegisterEntryPage {
   readonly id = input.required<string>();
 
   private readonly registerApi = inject(RegisterApi);
+  private readonly plansApi = inject(PlansApi);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
   private readonly session = inject(Session);
@@ -82,6 +89,9 @@ export class RegisterEntryPage {
   protected readonly isSaving = signal(false);
   protected readonly errorMessage = signal<string | null>(null);
   protected readonly saveError = signal<string | null>(null);
+  protected readonly plans = signal<PlanSummaryDto[] | null>(null);
+  protected readonly plansError = signal<string | null>(null);
+  protected readonly strategyLabels = PLAN_STRATEGY_LABELS;
   protected readonly canWrite = computed(() => this.session.hasRole(...REGISTER_WRITERS));
   protected readonly owners = ownerOptions();
   protected readonly statuses = STATUSES;
@@ -103,7 +113,10 @@ export class RegisterEntryPage {
   constructor() {
     effect(() => {
       const id = Number(this.id());
-      untracked(() => this.load(id));
+      untracked(() => {
+        this.load(id);
+        this.loadPlans(id);
+      });
     });
   }
 
@@ -176,6 +189,19 @@ export class RegisterEntryPage {
       change.ownerId = value.ownerId;
     }
     return change;
+  }
+
+  private loadPlans(id: number): void {
+    this.plansApi.listForEntry(id).subscribe({
+      next: (page) => {
+        this.plans.set(page.items);
+        this.plansError.set(null);
+      },
+      error: (error: unknown) => {
+        this.plans.set(null);
+        this.plansError.set(apiErrorMessage(error));
+      },
+    });
   }
 
   private load(id: number): void {
