@@ -20,8 +20,8 @@ export const ACCOUNTS = {
   east: 'plant.east@demo.test',
   viewer: 'viewer@demo.test',
 } as const;
-/** A short account name. */
-export type Account = keyof typeof ACCOUNTS;
+/** A short account name, or the e-mail address of another user. */
+export type Account = keyof typeof ACCOUNTS | `${string}@${string}`;
 
 /**
  * The second source for S-2-SHARED-A that the what-if spec worked out on the demo network
@@ -75,7 +75,9 @@ export async function createPlanTestApp(): Promise<PlanTestApp> {
   const rows = t.database.sqlite.prepare('select id, supplier_code as code from register_entries')
     .all() as { id: number; code: string }[];
   const entryOf = Object.fromEntries(rows.map((row) => [row.code, row.id]));
-  const auth = (account: Account) => ({ Authorization: `Bearer ${t.tokenFor(ACCOUNTS[account])}` });
+  const emailOf = (account: Account) => (account.includes('@') ? account
+    : ACCOUNTS[account as keyof typeof ACCOUNTS]);
+  const auth = (account: Account) => ({ Authorization: `Bearer ${t.tokenFor(emailOf(account))}` });
   const helpers: PlanTestApp = {
     t,
     entryOf,
