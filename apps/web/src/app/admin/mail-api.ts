@@ -1,6 +1,6 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { MailMessageDto, MailSummaryDto, Page } from '@keelson/contracts';
+import type { DigestSentDto, MailMessageDto, MailSummaryDto, Page } from '@keelson/contracts';
 import type { Observable } from 'rxjs';
 
 /** Data access for the messages caught by the local mail sink (admin only). */
@@ -17,5 +17,10 @@ export class MailApi {
   /** GET /api/admin/mail/:id: one message with its text and HTML parts. */
   get(id: number): Observable<MailMessageDto> {
     return this.http.get<MailMessageDto>(`/api/admin/mail/${id}`);
+  }
+
+  /** POST /api/admin/digest: sends the weekly digest of overdue tasks now. */
+  sendDigest(): Observable<DigestSentDto> {
+    return this.http.post<DigestSentDto>('/api/admin/digest', {});
   }
 }

@@ -2,14 +2,17 @@ import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MatIcon } from '@angular/material/icon';
 import { MatPaginator, type PageEvent } from '@angular/material/paginator';
 import { MatProgressBar } from '@angular/material/progress-bar';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
 import { DomSanitizer, type SafeHtml } from '@angular/platform-browser';
-import type { MailMessageDto, MailSummaryDto, Page } from '@keelson/contracts';
-import { Subject, catchError, map, merge, of, switchMap } from 'rxjs';
+import type { DigestSentDto, MailMessageDto, MailSummaryDto, Page } from '@keelson/contracts';
+import { EMPTY, Subject, catchError, map, merge, of, switchMap } from 'rxjs';
 import { apiErrorMessage } from '../shared/api-error-message';
+import { ConfirmDialog, type ConfirmDialogData } from './confirm-dialog';
 import { MailApi } from './mail-api';
 
 /** Messages per page of the list. */
@@ -17,10 +20,21 @@ export const MAIL_PAGE_SIZE = 25;
 
 type Loaded<T> = { value: T } | { error: string };
 
+/** What the page says after sending the digest now. */
+export function digestOutcome(sent: DigestSentDto): string {
+  if (sent.overdueTasks === 0) {
+    return 'No task is overdue, so no digest was sent.';
+  }
+  const tasks = `${sent.overdueTasks} overdue task${sent.overdueTasks === 1 ? '' : 's'}`;
+  const people = `${sent.recipients} ${sent.recipients === 1 ? 'person' : 'people'}`;
+  return `Digest sent to ${people}, covering ${tasks}.`;
+}
+
 /**
  * "Sent mail": the messages the server's local mail sink caught (invitations and notices), newest
  * first. Choosing one shows its text part and its HTML part, the latter in a fully sandboxed
- * frame.
+ * frame. "Send the digest now" sends the weekly digest of overdue tasks without waiting for its
+ * schedule, after a confirmation.
  */
 @Component({
   selector: 'kl-mail-page',
@@ -32,6 +46,8 @@ type Loaded<T> = { value: T } | { error: string };
 export class MailPage {
   private readonly mailApi = inject(MailApi);
   private readonly sanitizer = inject(DomSanitizer);
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
   private readonly reloads = new Subject<void>();
 
   protected readonly columns = ['receivedAt', 'to', 'subject'] as const;
@@ -45,6 +61,9 @@ export class MailPage {
   protected readonly selected = signal<MailMessageDto | null>(null);
   protected readonly detailError = signal<string | null>(null);
   protected readonly isDetailLoading = signal(false);
+  protected readonly isSendingDigest = signal(false);
+  /** The outcome of the last "Send the digest now", shown above the list. */
+  protected readonly digestMessage = signal<string | null>(null);
   /**
    * The HTML part for the frame's srcdoc. Angular's sanitizer would strip the message's own
    * styling, which is what an administrator checks here; the frame's empty `sandbox` attribute
@@ -115,6 +134,42 @@ export class MailPage {
 
   protected refresh(): void {
     this.reloads.next();
+  }
+
+  protected sendDigest(): void {
+    const data: ConfirmDialogData = {
+      title: 'Send the digest now?',
+      message:
+        'Everyone with overdue tasks gets their list by e-mail now, and every risk manager ' +
+        'gets the list of all overdue tasks, as on the weekly schedule. People who switched ' +
+        'the digest off get nothing.',
+      confirmLabel: 'Send the digest',
+    };
+    this.dialog
+      .open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, { data })
+      .afterClosed()
+      .pipe(
+        switchMap((isConfirmed) => {
+          if (!isConfirmed) return EMPTY;
+          this.isSendingDigest.set(true);
+          return this.mailApi.sendDigest();
+        }),
+      )
+      .subscribe({
+        next: (sent) => {
+          this.isSendingDigest.set(false);
+          const message = digestOutcome(sent);
+          this.digestMessage.set(message);
+          this.snackBar.open(message, 'Close', { duration: 6000 });
+          this.reloads.next();
+        },
+        error: (error: unknown) => {
+          this.isSendingDigest.set(false);
+          const message = `The digest was not sent: ${apiErrorMessage(error)}`;
+          this.digestMessage.set(message);
+          this.snackBar.open(message, 'Close', { duration: 8000 });
+        },
+      });
   }
 
   protected onPage(event: PageEvent): void {
