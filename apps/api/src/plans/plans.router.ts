@@ -14,6 +14,7 @@ import { route, SIGNED_IN } from '../http/route';
 import type { PlanApprovalsService } from './plan-approvals.service';
 import { PLAN_WRITERS } from './plan-rules';
 import type { PlansService } from './plans.service';
+import type { TasksService } from './tasks.service';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() });
 const entryParams = z.object({ entryId: z.coerce.number().int().positive() });
@@ -24,6 +25,7 @@ const whatIfSchema = z.object({ changes: z.array(planChangeSchema).max(50).optio
 export interface PlanRouterDeps {
   plans: PlansService;
   approvals: PlanApprovalsService;
+  tasks: TasksService;
 }
 
 /**
@@ -135,7 +137,8 @@ export function createPlansRouter(deps: PlanRouterDeps): Router {
     handler: (req, res) => {
       const { id } = parseInput(idParams, req.params, 'params');
       const body = parseInput(createTaskSchema, req.body, 'body');
-      res.status(201).json(plans.addTask(sessionUser(req), id, body));
+      const user = sessionUser(req);
+      res.status(201).json(deps.tasks.detail(user, plans.addTask(user, id, body)));
     },
   });
   return router;

@@ -169,18 +169,17 @@ export class PlansService {
     return this.detail(user, id);
   }
 
-  /** Adds a task to a draft or rejected plan (a rejected plan goes back to draft). */
-  addTask(user: SessionUser, planId: number, input: CreateTaskInput): PlanDto {
+  /** Adds a task to a draft or rejected plan (a rejected plan goes back to draft); its id. */
+  addTask(user: SessionUser, planId: number, input: CreateTaskInput): number {
     const { repository, views } = this.deps;
     const { plan } = views.plan(user, planId);
     assertEditable(plan);
     views.checkOwner(input.ownerId, 'body.ownerId');
     const now = this.deps.now();
-    repository.transaction(() => {
+    return repository.transaction(() => {
       reopenIfRejected(this.context(user, now), plan);
-      this.insertTask(user, plan, input, now);
+      return this.insertTask(user, plan, input, now);
     });
-    return this.detail(user, planId);
   }
 
   /** Withdraws a plan that is not done (or withdrawn already); its tasks stop being active. */

@@ -55,9 +55,10 @@ describe('editing tasks of a draft', () => {
     const added = await s.post('risk', `/api/plans/${plan.id}/tasks`,
       { title: 'Call the forge', ownerId: viewer, dueDate: '2026-03-10' });
     expect(added.status).toBe(201);
-    const task = (added.body as PlanDto).tasks[0]!;
-    expect(task).toMatchObject({ title: 'Call the forge', owner: { id: viewer },
-      status: 'todo', isActive: false, isOverdue: false });
+    const task = added.body as PlanTaskDetailDto;
+    expect(task).toMatchObject({ planId: plan.id, title: 'Call the forge',
+      owner: { id: viewer }, status: 'todo', isActive: false, isOverdue: false,
+      plan: { id: plan.id, status: 'draft' } });
     const edited = await s.patch('admin', `/api/tasks/${task.id}`,
       { title: 'Call the forge twice', dueDate: null });
     expect(edited.status).toBe(200);
@@ -89,8 +90,9 @@ describe('editing tasks of a draft', () => {
       .expect(200);
     const added = await s.post('risk', `/api/plans/${plan.id}/tasks`,
       { title: 'Own the work', ownerId: viewer });
-    expect(added.body).toMatchObject({ status: 'draft',
-      rejectionComment: 'Needs an owner for the work.' });
+    expect((added.body as PlanTaskDetailDto).plan.status).toBe('draft');
+    expect((await s.get('risk', `/api/plans/${plan.id}`)).body)
+      .toMatchObject({ status: 'draft', rejectionComment: 'Needs an owner for the work.' });
     expect(s.audit('plan', plan.id).slice(-1)[0]).toMatchObject({ action: 'plan.updated',
       before: { status: 'rejected' }, after: { status: 'draft' } });
   });
@@ -100,7 +102,8 @@ describe('working on tasks of an approved plan', () => {
   it('lets the owner, a risk manager or an administrator change the status, nobody else',
     async () => {
       const plan = await approve(await s.draft('S-1-001', { tasks: [
-        { title: 'Order stock', ownerId: viewer }, { title: 'Check the shelf', ownerId: buyer }] }));
+        { title: 'Order stock', ownerId: viewer },
+        { title: 'Check the shelf', ownerId: buyer }] }));
       const [own, other] = plan.tasks;
       expect(plan.status).toBe('approved');
       const refused = await s.patch('viewer', `/api/tasks/${other!.id}`, { status: 'done' });
@@ -131,6 +134,8 @@ describe('working on tasks of an approved plan', () => {
     const first = await s.post('viewer', `/api/tasks/${taskId}/comments`,
       { text: 'Which supplier?' });
     expect(first.status).toBe(201);
+    expect(first.body).toMatchObject({ text: 'Which supplier?',
+      user: { id: viewer, name: 'Vera Novak' }, createdAt: s.t.clock.now.toISOString() });
     await s.post('south', `/api/tasks/${taskId}/comments`, { text: 'The usual one.' })
       .expect(201);
     const detail = (await s.get('buyer', `/api/tasks/${taskId}`)).body as PlanTaskDetailDto;

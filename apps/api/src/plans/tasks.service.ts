@@ -10,6 +10,7 @@ import type {
   MyTasksQuery,
   PlanStatus,
   PlanTaskDetailDto,
+  TaskCommentDto,
   TaskStatus,
   UpdateTaskInput,
 } from '@keelson/contracts';
@@ -128,18 +129,20 @@ export class TasksService {
   }
 
   /** Adds a comment; anyone who may see the plan may comment on its tasks. */
-  comment(user: SessionUser, taskId: number, input: CreateTaskCommentInput): PlanTaskDetailDto {
+  comment(user: SessionUser, taskId: number, input: CreateTaskCommentInput): TaskCommentDto {
     const { repository, views, db } = this.deps;
     const { plan } = views.task(user, taskId);
     const now = this.deps.now();
-    repository.transaction(() => {
-      const commentId = repository.insertComment({ taskId, userId: user.id, text: input.text,
+    const commentId = repository.transaction(() => {
+      const id = repository.insertComment({ taskId, userId: user.id, text: input.text,
         createdAt: now.toISOString() });
       recordAudit(db, { action: 'task.commented', subjectType: 'plan_task', subjectId: taskId,
-        userId: user.id, after: { commentId, text: input.text, planId: plan.id,
+        userId: user.id, after: { commentId: id, text: input.text, planId: plan.id,
           entryId: plan.entryId } }, now);
+      return id;
     });
-    return this.detail(user, taskId);
+    return toTaskCommentDto(repository.comments(taskId)
+      .find((comment) => comment.id === commentId)!);
   }
 
   private checkUpdate(
