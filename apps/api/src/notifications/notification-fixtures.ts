@@ -214,13 +214,16 @@ export function mountNotifications(
   };
 }
 
-/** A logger that records errors and drops everything else. */
-export function recordingLogger(): FeatureDeps['logger'] & { errors: unknown[][] } {
+/** A logger that records errors and warnings and drops everything else. */
+export function recordingLogger():
+  FeatureDeps['logger'] & { errors: unknown[][]; warnings: unknown[][] } {
   const errors: unknown[][] = [];
+  const warnings: unknown[][] = [];
   const ignore = () => undefined;
-  return { errors, error: (...args: unknown[]) => void errors.push(args), warn: ignore,
-    info: ignore, debug: ignore, trace: ignore, fatal: ignore } as unknown as
-    FeatureDeps['logger'] & { errors: unknown[][] };
+  return { errors, warnings, error: (...args: unknown[]) => void errors.push(args),
+    warn: (...args: unknown[]) => void warnings.push(args), info: ignore, debug: ignore,
+    trace: ignore, fatal: ignore } as unknown as
+    FeatureDeps['logger'] & { errors: unknown[][]; warnings: unknown[][] };
 }
 
 function silentLogger(): FeatureDeps['logger'] {

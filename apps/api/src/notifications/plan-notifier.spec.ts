@@ -99,6 +99,21 @@ describe('planSubmitted', () => {
     expect(message.text).toContain('Second forge <script>alert("owned")</script> & "quotes"');
   });
 
+  it('warns when a plant of the plan has no active manager to e-mail', async () => {
+    const logger = recordingLogger();
+    const own = mountNotifications(t, { logger });
+    setActive(t.database.db, id.east, false);
+    own.notifier.planSubmitted({ planId, plants: ['P-NORTH', 'P-EAST', 'P-WEST'],
+      byUserId: id.risk });
+    await own.notifier.settled();
+    expect(logger.warnings.map((args) => args[0])).toEqual([
+      { planId, plants: ['P-EAST', 'P-WEST'] },
+    ]);
+    expect(caughtMail(t.database.db).map((message) => message.toAddresses))
+      .toEqual([['plant.north@demo.test']]);
+    await own.close();
+  });
+
   it('skips a manager who switched plan_submitted off, and a deactivated one', async () => {
     unsubscribe(t.database.db, id.north, ['plan_submitted']);
     setActive(t.database.db, id.south, false);

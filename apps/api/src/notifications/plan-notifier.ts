@@ -88,7 +88,16 @@ export function createPlanNotifier(deps: PlanNotifierDeps): PlanNotifier {
         const plan = repository.plan(event.planId);
         if (!plan) return [];
         const submittedBy = nameOf(event.byUserId) ?? 'A risk manager';
-        return repository.managersOf(event.plants)
+        const managers = repository.managersOf(event.plants);
+        const managed = new Set(managers.flatMap(({ recipient, plants }) =>
+          recipient.isActive ? plants : []));
+        const unmanaged = event.plants.filter((plant) => !managed.has(plant));
+        if (unmanaged.length > 0) {
+          // Nobody can approve for these plants: say so where an administrator will look.
+          logger.warn({ planId: event.planId, plants: unmanaged },
+            'a submitted plan touches plants without an active plant manager');
+        }
+        return managers
           .filter(({ recipient }) => recipient.id !== event.byUserId &&
             wantsMail(recipient, 'plan_submitted'))
           .map(({ recipient, plants }) => planSubmittedEmail({
