@@ -37,6 +37,15 @@ describe('PlanPage', () => {
     await settle();
     backend.expectOne('/api/plans/7').flush(plan);
     await settle();
+    flushHistory();
+    await settle();
+  }
+
+  // The history panel reads the plan's audit trail (its own spec tests what it shows).
+  function flushHistory(): void {
+    for (const request of backend.match('/api/audit/history/plan/7')) {
+      request.flush({ items: [] });
+    }
   }
 
   async function confirmDialog(label: string): Promise<void> {
@@ -56,6 +65,7 @@ describe('PlanPage', () => {
   });
 
   afterEach(() => {
+    flushHistory();
     backend.verify();
     clearOverlays();
   });

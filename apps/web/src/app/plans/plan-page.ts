@@ -27,6 +27,7 @@ import { Session } from '../auth/session';
 import { type ConfirmDialogData, ConfirmDialog } from '../admin/confirm-dialog';
 import { RatingChip } from '../register/rating-chip';
 import { apiErrorMessage } from '../shared/api-error-message';
+import { HistoryPanel } from '../shared/history-panel/history-panel';
 import { type DecisionDialogData, DecisionDialog } from './decision-dialog';
 import { PLAN_WRITERS, describeChange } from './plan-labels';
 import { PlanStatusChip } from './plan-status-chip';
@@ -46,6 +47,7 @@ import { WhatIfTable } from './what-if-table';
   imports: [
     DatePipe,
     DecimalPipe,
+    HistoryPanel,
     MatButton,
     MatIcon,
     MatProgressBar,

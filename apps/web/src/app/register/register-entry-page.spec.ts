@@ -71,6 +71,15 @@ describe('RegisterEntryPage', () => {
     expectEntry().flush(entry);
     backend.expectOne('/api/register/12/plans').flush({ items: plans, total: plans.length });
     await settle();
+    flushHistory();
+    await settle();
+  }
+
+  // The history panel reads the entry's audit trail (its own spec tests what it shows).
+  function flushHistory(): void {
+    for (const request of backend.match('/api/audit/history/register_entry/12')) {
+      request.flush({ items: [] });
+    }
   }
 
   function button(label: string): HTMLButtonElement | undefined {
@@ -96,6 +105,7 @@ describe('RegisterEntryPage', () => {
   });
 
   afterEach(() => {
+    flushHistory();
     backend.verify();
     document.querySelectorAll('.cdk-overlay-container').forEach((node) => node.remove());
   });

@@ -35,6 +35,7 @@ import { NetworkVersionsApi } from '../network/network-versions-api';
 import { PlanStatusChip } from '../plans/plan-status-chip';
 import { PlansApi } from '../plans/plans-api';
 import { apiErrorMessage } from '../shared/api-error-message';
+import { HistoryPanel } from '../shared/history-panel/history-panel';
 import { OverrideDialog } from './override-dialog';
 import { ownerOptions } from './owner-options';
 import { RatingChip } from './rating-chip';
@@ -54,6 +55,7 @@ import { StatusChip } from './status-chip';
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     DatePipe,
+    HistoryPanel,
     MatButton,
     MatError,
     MatFormField,
