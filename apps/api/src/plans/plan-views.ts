@@ -98,7 +98,10 @@ export class PlanViews {
       today: todayOf(this.now()) });
   }
 
-  /** A task and its plan, when the user may see the plan; 404 otherwise. */
+  /**
+   * A task and its plan, when the user may see the plan or owns the task (a plant manager can
+   * own a task of a plan outside their plants); 404 otherwise.
+   */
   task(user: SessionUser, taskId: number): LoadedPlan & { task: TaskRecord } {
     const task = this.repository.task(taskId);
     if (!task) throw notFound(`Task ${taskId} was not found.`);
@@ -106,7 +109,7 @@ export class PlanViews {
     if (!loaded) throw notFound(`Task ${taskId} was not found.`);
     const entry = this.repository.entries(latestNetworkVersionId(this.db), [loaded.entryId])
       .get(loaded.entryId);
-    if (!entry || !this.mayRead(user, entry.plants)) {
+    if (!entry || (!this.mayRead(user, entry.plants) && task.ownerId !== user.id)) {
       throw notFound(`Task ${taskId} was not found.`);
     }
     return { task, plan: loaded, entry };

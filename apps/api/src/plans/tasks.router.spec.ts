@@ -128,6 +128,22 @@ describe('working on tasks of an approved plan', () => {
         .toEqual(['plan.approved', 'plan.in_progress', 'plan.done']);
     });
 
+  it('lets a plant manager work on a task they own on a plan outside their plants', async () => {
+    const north = s.t.userId('plant.north@demo.test');
+    const plan = await approve(await s.draft('S-1-001', { tasks: [
+      { title: 'Lend the gauge', ownerId: north }, { title: 'Not hers' }] }));
+    const [own, other] = plan.tasks;
+    expect((await s.get('north', `/api/plans/${plan.id}`)).status).toBe(404);
+    expect((await s.get('north', `/api/tasks/${other!.id}`)).status).toBe(404);
+    const mine = (await s.get('north', '/api/tasks/mine')).body as MyTasksDto;
+    expect(mine.items.map((task) => task.id)).toEqual([own!.id]);
+    expect((await s.get('north', `/api/tasks/${own!.id}`)).status).toBe(200);
+    const done = await s.patch('north', `/api/tasks/${own!.id}`, { status: 'done' });
+    expect(done.status).toBe(200);
+    await s.post('north', `/api/tasks/${own!.id}/comments`, { text: 'Sent by courier.' })
+      .expect(201);
+  });
+
   it('takes comments from anyone who may see the plan, with an audit record', async () => {
     const plan = await s.draft('S-1-001', { tasks: [{ title: 'Order stock' }] });
     const taskId = plan.tasks[0]!.id;
