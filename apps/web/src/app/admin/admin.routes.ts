@@ -28,4 +28,10 @@ export const adminRoutes: Routes = [
     canActivate: [navigationGuard('admin/scoring')],
     loadComponent: () => import('./scoring-settings-page').then((m) => m.ScoringSettingsPage),
   },
+  {
+    path: 'audit',
+    title: 'Audit trail · Keelson',
+    canActivate: [navigationGuard('admin/audit')],
+    loadComponent: () => import('./audit-page').then((m) => m.AuditPage),
+  },
 ];
