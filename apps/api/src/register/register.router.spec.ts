@@ -114,7 +114,7 @@ describe('GET /api/register/owners', () => {
     expect(response.status).toBe(200);
     const names = response.body.items.map((owner: { name: string }) => owner.name);
     expect(names).toEqual(['Alma Reyes', 'Bruno Keller', 'Pia Lindqvist', 'Rania Okafor',
-      'Sergio Marin']);
+      'Sergio Marin', 'Tomasz Halwe']);
     for (const role of ['viewer', 'buyer', 'plant_manager'] as const) {
       expect((await request(t.app).get('/api/register/owners').set(as(role))).status).toBe(403);
     }
