@@ -64,7 +64,7 @@ describe('AuditPage', () => {
     await settle();
   };
 
-  it('asks for the first page and lists events with who, action, subject and a sentence', async () => {
+  it('asks for the first page and lists who, action, subject and a sentence', async () => {
     const list = expectList();
     expect(list.request.params.get('limit')).toBe('50');
     expect(list.request.params.get('offset')).toBe('0');

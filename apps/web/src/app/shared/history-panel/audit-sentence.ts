@@ -80,7 +80,7 @@ export function describeAuditEvent(event: AuditEventDto): string {
     case 'task.deleted':
       return `${who} deleted ${task()}`;
     case 'task.commented':
-      return `${who} commented on ${task()}${quoted(after['comment'] ?? after['body'])}`;
+      return `${who} commented on ${task()}${quoted(after['text'] ?? after['comment'])}`;
     case 'user.invited':
       return `${who} invited ${String(after['name'] ?? after['email'] ?? `user #${id}`)}`;
     case 'user.updated':
@@ -91,12 +91,19 @@ export function describeAuditEvent(event: AuditEventDto): string {
       return `${who} deactivated user #${id}`;
     case 'user.reactivated':
       return `${who} reactivated user #${id}`;
+    case 'user.mail_preferences_changed':
+      return `${who} changed the e-mail settings of user #${id}`;
     default:
       return `${who}: ${event.action.replace(/[._]/g, ' ')} (${event.subjectType} ${id})`;
   }
 }
 
-/** The fields whose value differs between before and after, in the order they first appear. */
+/**
+ * The fields that changed: the keys of `before` whose value differs in `after`. Keys only in
+ * `after` are details of the event (a decision's plant and comment), not changes; an event
+ * whose after has none of before's keys (a deletion) lists nothing. A plan's decision records
+ * the new status as `planStatus`, so that stands for `status`.
+ */
 export function changedFields(
   before: Record<string, unknown> | null,
   after: Record<string, unknown> | null,
@@ -104,15 +111,17 @@ export function changedFields(
   if (!before || !after) {
     return [];
   }
-  const keys = [...new Set([...Object.keys(before), ...Object.keys(after)])];
-  return keys
-    .filter((key) => !CONTEXT_KEYS.has(key))
-    .filter((key) => JSON.stringify(before[key]) !== JSON.stringify(after[key]))
+  const afterOf = (key: string) =>
+    key in after ? after[key] : key === 'status' ? after['planStatus'] : undefined;
+  const shared = Object.keys(before).filter((key) => !CONTEXT_KEYS.has(key))
+    .filter((key) => key in after || (key === 'status' && 'planStatus' in after));
+  return shared
+    .filter((key) => JSON.stringify(before[key]) !== JSON.stringify(afterOf(key)))
     .map((key) => ({
       key,
       label: fieldLabel(key),
       before: formatValue(before[key]),
-      after: formatValue(after[key]),
+      after: formatValue(afterOf(key)),
     }));
 }
 

@@ -12,7 +12,7 @@ import { HistoryPanel } from './history-panel';
 const APPROVED: AuditEventDto = {
   id: 12, action: 'plan.approved', subjectType: 'plan', subjectId: '3',
   user: { id: 4, name: 'Pia Lindqvist' },
-  before: { planStatus: 'submitted', entryId: 7 },
+  before: { status: 'submitted' },
   after: { plantCode: 'P-NORTH', decision: 'approved', comment: 'ok', planStatus: 'approved',
     entryId: 7 },
   createdAt: '2026-12-01T10:00:00.000Z',
@@ -63,6 +63,9 @@ describe('HistoryPanel', () => {
     expect(items[0]!.querySelector('.history__who')?.textContent).toBe('Pia Lindqvist');
     expect(items[0]!.querySelector('.history__sentence')?.textContent)
       .toBe("Pia Lindqvist approved plan #3 for P-NORTH: 'ok'");
+    // A decision's plant and comment are details; the plan's status is what changed.
+    expect(items[0]!.querySelector('.history__change')?.textContent?.replace(/\s+/g, ' ').trim())
+      .toBe('status: submitted → approved');
     // Only what differs is listed; the entry id is context, not a change.
     const changes = [...items[1]!.querySelectorAll('.history__change')]
       .map((change) => change.textContent?.replace(/\s+/g, ' ').trim());
@@ -118,6 +121,12 @@ describe('audit sentences', () => {
       .toBe('Rania Okafor: thing did stuff (register_entry 7)');
   });
 
+  it('words a comment, and a field that changed its value', () => {
+    expect(describeAuditEvent({ ...EDITED, action: 'task.commented', subjectType: 'plan_task',
+      subjectId: '8', before: null, after: { text: 'Booked the audit', planId: 3 } }))
+      .toBe("Rania Okafor commented on task #8: 'Booked the audit'");
+  });
+
   it('lists changed fields with lists joined and nothing as a dash', () => {
     expect(changedFields({ role: 'viewer', plantCodes: [] },
       { role: 'plant_manager', plantCodes: ['P-NORTH', 'P-EAST'] })).toEqual([
@@ -125,6 +134,9 @@ describe('audit sentences', () => {
       { key: 'plantCodes', label: 'plant codes', before: '—', after: 'P-NORTH, P-EAST' },
     ]);
     expect(changedFields(null, { title: 'Call supplier' })).toEqual([]);
+    // A deleted task: its last state, and nothing after.
+    expect(changedFields({ title: 'Call supplier', status: 'todo' }, { planId: 3, entryId: 7 }))
+      .toEqual([]);
   });
 
   it('words times relative to now', () => {
