@@ -75,6 +75,9 @@ describe('AuditPage', () => {
     expect(cells[0]!.slice(1, 4)).toEqual(['Alma Reyes', 'user.role_changed', 'user 4']);
     expect(cells[0]![4]).toContain('Alma Reyes changed the role or plants of user #4');
     expect(cells[1]![1]).toBe('Keelson (system)');
+    // A run has its own page; a user does not.
+    expect(rows()[1]!.querySelector('a.audit__subject')?.getAttribute('href')).toBe('/runs/5');
+    expect(rows()[0]!.querySelector('a.audit__subject')).toBeNull();
     expect(root.querySelector<HTMLAnchorElement>('a.audit__export')!.getAttribute('href'))
       .toBe('/api/audit/export.xlsx');
   });
@@ -100,6 +103,18 @@ describe('AuditPage', () => {
     const href = root.querySelector<HTMLAnchorElement>('a.audit__export')!.getAttribute('href')!;
     expect(href).toBe('/api/audit/export.xlsx?action=plan.&subjectType=plan&from=2026-11-01' +
       '&to=2026-11-30&q=P-NORTH&userId=4');
+  });
+
+  it('suggests actions matching what is typed, prefixes first', async () => {
+    expectList().flush({ items: [], total: 0 });
+    await settle();
+    const input = root.querySelector<HTMLInputElement>('input[name="action"]')!;
+    input.focus();
+    type('action', 'user.r');
+    await settle();
+    const options = [...document.querySelectorAll('mat-option')]
+      .map((option) => option.textContent?.trim());
+    expect(options).toEqual(['user.role_changed', 'user.reactivated']);
   });
 
   it('refuses a range that ends before it starts, without asking the server', async () => {

@@ -3,6 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButton, MatIconButton } from '@angular/material/button';
+import { MatAutocomplete, MatAutocompleteTrigger } from '@angular/material/autocomplete';
 import { MatOption, provideNativeDateAdapter } from '@angular/material/core';
 import {
   MatDatepicker,
@@ -22,6 +23,7 @@ import { MatPaginator, type PageEvent } from '@angular/material/paginator';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import { MatSelect } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
 import type { AuditEventDto, AuditListDto } from '@keelson/contracts';
 import { catchError, map, of, switchMap } from 'rxjs';
 import { apiErrorMessage } from '../shared/api-error-message';
@@ -41,6 +43,33 @@ export const AUDIT_SUBJECT_TYPES = [
   { value: 'plan_task', label: 'Plan task' },
   { value: 'user', label: 'User' },
 ] as const;
+
+/** Actions to suggest in the filter: the prefixes first, then every action recorded. */
+export const AUDIT_ACTION_SUGGESTIONS = [
+  'import.', 'run.', 'register.', 'plan.', 'task.', 'user.',
+  'import.committed', 'run.succeeded', 'register.updated', 'register.likelihood_overridden',
+  'register.mitigating', 'plan.created', 'plan.updated', 'plan.what_if_evaluated',
+  'plan.submitted', 'plan.approved', 'plan.rejected', 'plan.withdrawn', 'plan.in_progress',
+  'plan.done', 'task.created', 'task.updated', 'task.deleted', 'task.commented',
+  'user.invited', 'user.updated', 'user.role_changed', 'user.deactivated', 'user.reactivated',
+  'user.mail_preferences_changed',
+] as const;
+
+/** The app's page of a subject, as router link commands; null when it has none. */
+export function subjectLink(event: AuditEventDto): string[] | null {
+  switch (event.subjectType) {
+    case 'register_entry':
+      return ['/register', event.subjectId];
+    case 'plan':
+      return ['/plans', event.subjectId];
+    case 'analysis_run':
+      return ['/runs', event.subjectId];
+    case 'network_version':
+      return ['/network', event.subjectId];
+    default:
+      return null;
+  }
+}
 
 /** One line of the before/after comparison. */
 export interface AuditDiffLine {
@@ -82,9 +111,10 @@ type Loaded = { value: AuditListDto } | { error: string };
   selector: 'kl-audit-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    DatePipe, ReactiveFormsModule, MatButton, MatIconButton, MatOption, MatDatepicker,
-    MatDatepickerInput, MatDatepickerToggle, MatFormField, MatHint, MatLabel, MatPrefix,
-    MatSuffix, MatIcon, MatInput, MatPaginator, MatProgressBar, MatSelect, MatTableModule,
+    DatePipe, ReactiveFormsModule, RouterLink, MatAutocomplete, MatAutocompleteTrigger,
+    MatButton, MatIconButton, MatOption, MatDatepicker, MatDatepickerInput, MatDatepickerToggle,
+    MatFormField, MatHint, MatLabel, MatPrefix, MatSuffix, MatIcon, MatInput, MatPaginator,
+    MatProgressBar, MatSelect, MatTableModule,
   ],
   providers: [provideNativeDateAdapter()],
   templateUrl: './audit-page.html',
@@ -104,6 +134,12 @@ export class AuditPage {
     from: new FormControl<Date | null>(null),
     to: new FormControl<Date | null>(null),
     q: new FormControl('', { nonNullable: true }),
+  });
+  private readonly typedAction = toSignal(this.form.controls.action.valueChanges,
+    { initialValue: '' });
+  protected readonly actionSuggestions = computed(() => {
+    const typed = this.typedAction().trim().toLowerCase();
+    return AUDIT_ACTION_SUGGESTIONS.filter((action) => action.startsWith(typed));
   });
   protected readonly users = toSignal(
     this.usersApi.list({ sort: 'name', order: 'asc', limit: 200 }).pipe(
@@ -198,6 +234,10 @@ export class AuditPage {
 
   protected sentence(event: AuditEventDto): string {
     return describeAuditEvent(event);
+  }
+
+  protected link(event: AuditEventDto): string[] | null {
+    return subjectLink(event);
   }
 
   protected diff(event: AuditEventDto): AuditDiffLine[] {
