@@ -29,11 +29,19 @@ import { RatingChip } from '../register/rating-chip';
           <th scope="row">Products lost</th>
           <td>
             {{ result.before.productsLost.length }}
-            <span class="kl-muted what-if__list">{{ result.before.productsLost.join(', ') }}</span>
+            <span class="kl-muted what-if__list">
+              @for (code of result.before.productsLost; track code; let last = $last) {
+                <span class="what-if__code">{{ code }}</span>@if (!last) {, }
+              }
+            </span>
           </td>
           <td>
             {{ result.after.productsLost.length }}
-            <span class="kl-muted what-if__list">{{ result.after.productsLost.join(', ') }}</span>
+            <span class="kl-muted what-if__list">
+              @for (code of result.after.productsLost; track code; let last = $last) {
+                <span class="what-if__code">{{ code }}</span>@if (!last) {, }
+              }
+            </span>
           </td>
         </tr>
         <tr>
@@ -104,6 +112,9 @@ import { RatingChip } from '../register/rating-chip';
       display: block;
       max-width: 36ch;
       font: var(--mat-sys-body-small);
+    }
+    .what-if__code {
+      white-space: nowrap;
     }
     .what-if__spof--gone {
       font-weight: 700;

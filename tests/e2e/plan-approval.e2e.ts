@@ -1,0 +1,229 @@
+/**
+ * Browser journey of a mitigation plan on the demo network: the risk manager runs an analysis
+ * (so the register holds the automatic entry of the hidden single point of failure
+ * S-2-SHARED-A), drafts a second-source plan from the entry with a task for the buyer, runs the
+ * what-if (S-2-SHARED-A stops being a single point of failure) and submits it; the plant
+ * managers of P-NORTH and P-SOUTH find it in Approvals with the numbers and approve; the
+ * administrator sees the e-mails in Sent mail and the steps in the audit trail; the buyer finds
+ * the task in My tasks. Screenshots go to docs/screens/plan-*.png.
+ */
+import type { Locator, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { openBrowser, screenshot, type BrowserSession } from './browser';
+import { startTestServer, type TestServer } from './server';
+
+/**
+ * The second source the what-if spec chose for S-2-SHARED-A (apps/api/src/plans/what-if.spec.ts):
+ * S-2-011, a tier-2 supplier that buys nothing and is not upstream of S-2-SHARED-A, becomes a
+ * qualified source of material M-01 for every buyer S-2-SHARED-A supplies it to today.
+ */
+const SECOND_SOURCE = { itemCode: 'M-01', supplierCode: 'S-2-011' };
+const TASK_TITLE = 'Audit S-2-011 and release its first M-01 order';
+
+/** A date `days` from today as the date picker reads typed dates (M/D/YYYY, en-US). */
+function typedDate(days: number): string {
+  const date = new Date(Date.now() + days * 86_400_000);
+  return `${date.getMonth() + 1}/${date.getDate()}/${date.getFullYear()}`;
+}
+
+async function signIn(page: Page, url: string, email: string): Promise<void> {
+  await page.context().clearCookies();
+  await page.goto(`${url}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill('keelson-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(/\/home/);
+}
+
+/** A JSON GET made by the page itself, with its session cookie. */
+async function apiGet<T>(page: Page, path: string): Promise<T> {
+  return page.evaluate(async (url) => {
+    const response = await fetch(url, { credentials: 'same-origin' });
+    return (await response.json()) as unknown;
+  }, path) as Promise<T>;
+}
+
+/**
+ * A screenshot of the whole page: the shell scrolls inside its content pane, so the window is
+ * made as tall as the content first; snack bars are closed and focus is let go of.
+ */
+async function shot(page: Page, name: string): Promise<void> {
+  for (const close of await page.locator('mat-snack-bar-container button').all()) {
+    await close.click();
+  }
+  await page.locator('mat-snack-bar-container').waitFor({ state: 'detached' });
+  // Strings, not functions: this file is typed without the DOM library.
+  await page.evaluate('document.activeElement && document.activeElement.blur()');
+  await page.mouse.move(0, 0);
+  const size = page.viewportSize()!;
+  const content = await page.evaluate<number>(
+    "(document.querySelector('mat-sidenav-content') || document.body).scrollHeight");
+  const height = content + 64;
+  await page.setViewportSize({ width: size.width, height: Math.max(size.height, height) });
+  await page.waitForTimeout(300);
+  await screenshot(page, name);
+  await page.setViewportSize(size);
+}
+
+/** Picks `option` in the mat-select labelled `label` inside `scope`. */
+async function choose(page: Page, scope: Locator, label: string,
+  option: string): Promise<void> {
+  await scope.getByLabel(label).click();
+  await page.getByRole('option', { name: option, exact: true }).click();
+}
+
+/** A plant manager approves the plan for their plant from Approvals. */
+async function approve(page: Page, planId: number, plant: string): Promise<void> {
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Approvals' })
+    .click();
+  const card = page.getByRole('listitem', { name: `Plan ${planId} for S-2-SHARED-A` });
+  await card.waitFor({ timeout: 15_000 });
+  await card.getByRole('button', { name: `Approve for ${plant}` }).click();
+  const dialog = page.getByRole('dialog');
+  await dialog.getByLabel('Comment (optional)').fill(`${plant} agrees: dual sourcing of M-01.`);
+  await dialog.getByRole('button', { name: 'Approve' }).click();
+  await dialog.waitFor({ state: 'detached' });
+  await page.getByText('Nothing waits for your decision.').waitFor({ timeout: 15_000 });
+}
+
+describe('a mitigation plan from draft to approval', () => {
+  let server: TestServer;
+  let browser: BrowserSession;
+
+  beforeAll(async () => {
+    server = await startTestServer();
+    browser = await openBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await server?.stop();
+  });
+
+  it('drafts, runs the what-if, submits, is approved by both plants, mails and audits',
+    async () => {
+      const page = await browser.newPage();
+      await signIn(page, server.url, 'risk@demo.test');
+      const navigation = page.getByRole('navigation', { name: 'Main' });
+
+      // 1. A run on the demo network puts S-2-SHARED-A in the register automatically.
+      await navigation.getByRole('link', { name: 'Analysis runs' }).click();
+      await page.getByRole('button', { name: 'Start a run' }).click();
+      await page.getByRole('dialog').getByLabel('Label').fill('Plan review');
+      await page.getByRole('dialog').getByRole('button', { name: 'Start' }).click();
+      await page.waitForURL(/\/runs\/\d+/, { timeout: 60_000 });
+      const register = await apiGet<{ items: { id: number; supplierCode: string }[] }>(
+        page, '/api/register?q=S-2-SHARED-A');
+      const entry = register.items.find((item) => item.supplierCode === 'S-2-SHARED-A');
+      expect(entry).toBeDefined();
+
+      // 2. From the entry, draft a second-source plan with one change and one task.
+      await page.goto(`${server.url}/register/${entry!.id}`);
+      await page.getByRole('heading', { name: 'Mitigation plans' }).waitFor();
+      await page.getByRole('link', { name: 'Draft a plan' }).click();
+      await page.waitForURL(/\/plans\/new\?entry=\d+/);
+      const form = page.locator('form.editor__form');
+      await form.getByLabel('Description').waitFor();
+      await choose(page, form, 'Strategy', 'Second source');
+      await form.getByLabel('Description').fill(
+        'Qualify S-2-011 as a second source of M-01 for every tier-1 buyer of S-2-SHARED-A, '
+        + 'so a stop at the foundry no longer stops the products.');
+      await form.getByLabel('Estimated cost').fill('38000');
+      await form.getByLabel('Target date').fill(typedDate(90));
+      await page.getByRole('button', { name: 'Add a change' }).click();
+      await page.getByRole('menuitem', { name: 'Add a qualified source' }).click();
+      const change = page.getByRole('listitem', { name: 'Change 1' });
+      await change.getByLabel('Item', { exact: true }).fill(SECOND_SOURCE.itemCode);
+      await change.getByLabel('New source (supplier)').fill(SECOND_SOURCE.supplierCode);
+      await expect.poll(() => change.getByLabel('Every buyer it supplies today').isChecked())
+        .toBe(true);
+      await page.getByRole('button', { name: 'Add a task' }).click();
+      const task = page.getByRole('listitem', { name: 'Task 1' });
+      await task.getByLabel('Task', { exact: true }).fill(TASK_TITLE);
+      await choose(page, task, 'Owner', 'Bruno Keller');
+      await task.getByLabel('Due date').fill(typedDate(30));
+      await shot(page, 'plan-1-editor');
+      await page.getByRole('button', { name: 'Save draft' }).click();
+      await page.waitForURL(/\/plans\/\d+$/, { timeout: 15_000 });
+      const planId = Number(/\/plans\/(\d+)$/.exec(page.url())![1]);
+
+      // 3. The what-if: after the change, S-2-SHARED-A is no longer a single point of failure.
+      await page.getByRole('button', { name: 'Run what-if' }).click();
+      const whatIf = page.getByRole('table', { name: 'What-if: before and after the plan' });
+      await whatIf.waitFor({ timeout: 30_000 });
+      const spof = whatIf.getByRole('row', { name: /Single point of failure/ });
+      await expect.poll(() => spof.getByRole('cell').allTextContents())
+        .toEqual([' Yes ', ' No longer '].map((text) => expect.stringContaining(text.trim())));
+      await expect.poll(() => page.locator('.what-if__note').textContent())
+        .toMatch(/numbers the plan is approved on: computed on network version \d+/);
+      await shot(page, 'plan-2-what-if');
+
+      // 4. Submit: both plants the risk touches must decide.
+      await page.getByRole('button', { name: 'Submit for approval' }).click();
+      await page.getByRole('dialog').getByRole('button', { name: 'Submit' }).click();
+      await expect.poll(() => page.locator('kl-plan-status-chip').first().textContent(),
+        { timeout: 15_000 }).toContain('Waiting for approval');
+      await expect.poll(() => page.getByText(/Waiting for: /).textContent())
+        .toContain('P-NORTH, P-SOUTH');
+
+      // 5. P-NORTH's manager finds it in Approvals with the numbers, and approves.
+      await signIn(page, server.url, 'plant.north@demo.test');
+      await page.getByRole('navigation', { name: 'Main' })
+        .getByRole('link', { name: 'Approvals' }).click();
+      const card = page.getByRole('listitem', { name: `Plan ${planId} for S-2-SHARED-A` });
+      await card.waitFor({ timeout: 15_000 });
+      const cardSpof = card.getByRole('row', { name: /Single point of failure/ });
+      await expect.poll(() => cardSpof.textContent()).toMatch(/Yes.*No longer/);
+      await expect.poll(() => card.getByRole('link', { name: /risk page/ }).getAttribute('href'))
+        .toMatch(/^\/risk\/\d+\/suppliers\/S-2-SHARED-A$/);
+      expect(await card.getByRole('button', { name: 'Approve for P-SOUTH' }).count()).toBe(0);
+      await shot(page, 'plan-3-approvals');
+      await approve(page, planId, 'P-NORTH');
+
+      // 6. P-SOUTH's manager approves too: the plan is approved and its task starts.
+      await signIn(page, server.url, 'plant.south@demo.test');
+      await approve(page, planId, 'P-SOUTH');
+      await page.goto(`${server.url}/plans/${planId}`);
+      await expect.poll(() => page.locator('kl-plan-status-chip').first().textContent(),
+        { timeout: 15_000 }).toMatch(/Approved|In progress/);
+      const decisions = page.getByRole('table', { name: 'Decisions' });
+      await expect.poll(() => decisions.getByRole('row').count()).toBe(3);
+      await page.getByRole('heading', { name: 'History' }).waitFor();
+      await shot(page, 'plan-4-approved');
+
+      // 7. The administrator sees the submission and decision e-mails in the sink.
+      await signIn(page, server.url, 'admin@demo.test');
+      await page.goto(`${server.url}/admin/mail`);
+      const mail = page.getByRole('table', { name: 'Sent messages' });
+      await expect.poll(() => mail.textContent(), { timeout: 15_000 })
+        .toContain('Plan waiting for your approval');
+      const subjects = (await mail.textContent()) ?? '';
+      expect(subjects).toContain('Plan approved for P-NORTH');
+      expect(subjects).toContain('Plan approved for P-SOUTH');
+      expect(subjects).toContain(`Task assigned to you: ${TASK_TITLE}`);
+      await shot(page, 'plan-5-mail');
+
+      // 8. The buyer finds the task in My tasks.
+      await signIn(page, server.url, 'buyer@demo.test');
+      await page.getByRole('navigation', { name: 'Main' })
+        .getByRole('link', { name: 'My tasks' }).click();
+      const tasks = page.getByRole('table', { name: 'My tasks' });
+      await expect.poll(() => tasks.textContent(), { timeout: 15_000 }).toContain(TASK_TITLE);
+      await expect.poll(() => tasks.getByRole('button', { name: `Mark done: ${TASK_TITLE}` })
+        .count()).toBe(1);
+      await shot(page, 'plan-6-my-tasks');
+
+      // 9. The audit trail shows the submission and both approvals.
+      await signIn(page, server.url, 'admin@demo.test');
+      await page.goto(`${server.url}/admin/audit`);
+      await page.getByLabel('Action').fill('plan.');
+      await page.getByRole('button', { name: 'Apply' }).click();
+      const audit = page.getByRole('table', { name: 'Audit events' });
+      const actions = () => audit.locator('td code').allTextContents();
+      await expect.poll(async () => (await actions()).filter((a) => a === 'plan.approved').length,
+        { timeout: 15_000 }).toBe(2);
+      expect(await actions()).toContain('plan.submitted');
+      expect(await actions()).toContain('plan.created');
+      await shot(page, 'plan-7-audit');
+      await page.close();
+    });
+});
