@@ -142,6 +142,8 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
       return { Cookie: cookie, [CSRF_HEADER]: CSRF_HEADER_VALUE };
     },
     async close() {
+      // The features' clean-ups first (e-mail still being sent, schedules), then the rest.
+      await built.close();
       mailer.close();
       await mailSink.stop();
       database.close();
