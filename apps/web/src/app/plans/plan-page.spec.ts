@@ -96,6 +96,8 @@ describe('PlanPage', () => {
     await settle();
     backend.expectOne('/api/plans/7').flush({ ...DRAFT, whatIf: whatIfResult() });
     await settle();
+    // The history panel reads the plan's trail again after the action.
+    expect(backend.match('/api/audit/history/plan/7').length).toBe(1);
     const table = root.querySelector('table[aria-label="What-if: before and after the plan"]')!;
     const rows = [...table.querySelectorAll('tbody tr')].map((row) =>
       [...row.children].map((cell) => words(cell)));
@@ -223,5 +225,47 @@ describe('PlanPage', () => {
     patch.flush({ ...tasks[0], status: 'doing' });
     await settle();
     backend.expectOne('/api/plans/7').flush(planDetail(7, { status: 'in_progress', tasks }));
+  });
+
+  it('opens a task\'s comments and adds one, then reads the plan again', async () => {
+    await open('plant_manager', planDetail(7, { status: 'submitted',
+      tasks: [planTask(31, { commentCount: 1 })] }));
+    const toggle = root.querySelector<HTMLButtonElement>(
+      'button[aria-label^="Comments on Qualify the second caster (31)"]')!;
+    toggle.click();
+    await settle();
+    backend.expectOne('/api/tasks/31').flush({
+      ...planTask(31, { commentCount: 1 }),
+      plan: planDetail(7),
+      comments: [{ id: 1, text: 'Quote requested.', user: { id: 3, name: 'Rania Okafor' },
+        createdAt: '2026-12-01T12:00:00.000Z' }],
+    });
+    await settle();
+    const panel = root.querySelector('kl-task-comments')!;
+    expect(words(panel.querySelector('li'))).toContain('Rania Okafor');
+    expect(words(panel.querySelector('li p'))).toBe('Quote requested.');
+    button(panel, 'Comment')!.click();
+    await settle();
+    expect(words(panel.querySelector('mat-error'))).toBe('Write a comment first.');
+    type(panel.querySelector('textarea')!, 'The caster confirmed the audit for January.');
+    button(panel, 'Comment')!.click();
+    await settle();
+    const post = backend.expectOne('/api/tasks/31/comments');
+    expect(post.request.body).toEqual({ text: 'The caster confirmed the audit for January.' });
+    post.flush({ id: 2, text: post.request.body.text, user: { id: 4, name: 'Pia Lindqvist' },
+      createdAt: '2026-12-01T13:00:00.000Z' });
+    await settle();
+    expect(panel.querySelectorAll('li').length).toBe(2);
+    backend.expectOne('/api/plans/7').flush(planDetail(7, { status: 'submitted',
+      tasks: [planTask(31, { commentCount: 2 })] }));
+    await settle();
+    expect(root.querySelector('kl-task-comments')).not.toBeNull();
+  });
+
+  it('says what comes next once every task is done', async () => {
+    await open('risk_manager', planDetail(7, { status: 'done' }));
+    const note = root.querySelector('.plan__done')!;
+    expect(words(note)).toContain('can now be closed, or re-scored');
+    expect(note.querySelector('a')!.getAttribute('href')).toBe('/register/12');
   });
 });

@@ -32,6 +32,7 @@ import { type DecisionDialogData, DecisionDialog } from './decision-dialog';
 import { PLAN_WRITERS, describeChange } from './plan-labels';
 import { PlanStatusChip } from './plan-status-chip';
 import { PlansApi } from './plans-api';
+import { TaskComments } from './task-comments';
 import { TaskStatusMenu } from './task-status-menu';
 import { WhatIfTable } from './what-if-table';
 
@@ -54,6 +55,7 @@ import { WhatIfTable } from './what-if-table';
     PlanStatusChip,
     RatingChip,
     RouterLink,
+    TaskComments,
     TaskStatusMenu,
     WhatIfTable,
   ],
@@ -71,9 +73,13 @@ export class PlanPage {
 
   protected readonly plan = signal<PlanDto | null>(null);
   protected readonly isLoading = signal(true);
+  // Counts the reads of the page, so the history panel reads again after every action (not all
+  // of them change \`updatedAt\`).
+  protected readonly loadCount = signal(0);
   protected readonly isBusy = signal(false);
   protected readonly loadError = signal<string | null>(null);
   protected readonly actionError = signal<string | null>(null);
+  protected readonly openTaskId = signal<number | null>(null);
   protected readonly strategyLabels = PLAN_STRATEGY_LABELS;
   protected readonly taskStatusLabels = TASK_STATUS_LABELS;
   protected readonly describeChange = describeChange;
@@ -100,6 +106,16 @@ export class PlanPage {
   protected canChangeTask(task: PlanTaskDto): boolean {
     const me = this.session.user();
     return task.isActive && me !== null && (task.owner?.id === me.id || this.isWriter());
+  }
+
+  protected toggleComments(taskId: number): void {
+    this.openTaskId.update((open) => (open === taskId ? null : taskId));
+  }
+
+  /** Reads the plan again (after a comment: its count and the history change). */
+  protected reload(): void {
+    const plan = this.plan();
+    if (plan) this.load(plan.id);
   }
 
   protected runWhatIf(plan: PlanDto): void {
@@ -181,6 +197,7 @@ export class PlanPage {
     this.plansApi.get(id).subscribe({
       next: (plan) => {
         this.plan.set(plan);
+        this.loadCount.update((count) => count + 1);
         this.loadError.set(null);
         this.isLoading.set(false);
       },

@@ -88,6 +88,9 @@ export class RegisterEntryPage {
 
   protected readonly entry = signal<RegisterEntryDetailDto | null>(null);
   protected readonly isLoading = signal(true);
+  // Counts the reads of the page, so the history panel reads again after every action (not all
+  // of them change \`updatedAt\`).
+  protected readonly loadCount = signal(0);
   protected readonly isSaving = signal(false);
   protected readonly errorMessage = signal<string | null>(null);
   protected readonly saveError = signal<string | null>(null);
@@ -211,6 +214,7 @@ export class RegisterEntryPage {
     this.registerApi.get(id).subscribe({
       next: (entry) => {
         this.entry.set(entry);
+        this.loadCount.update((count) => count + 1);
         this.reset(entry);
         this.errorMessage.set(null);
         this.isLoading.set(false);
