@@ -20,7 +20,7 @@ export type AuditFilters = ExportAuditQuery;
 
 /** Escapes LIKE wildcards so a search for `50%` finds the text `50%`. */
 function likePattern(text: string): string {
-  return `%${text.toLowerCase().replace(/[\\%_]/g, (character) => `\\${character}`)}%`;
+  return `%${text.replace(/[\\%_]/g, (character) => `\\${character}`)}%`;
 }
 
 /** The day after a YYYY-MM-DD date, at midnight UTC, as the trail stores times. */
@@ -33,7 +33,7 @@ function dayAfter(date: string): string {
 /**
  * The WHERE of the filters. `action` ending in a dot (`plan.`) is a prefix, anything else is
  * exact; `from`/`to` are whole UTC days, both inclusive; `q` searches the action, the subject
- * type and id, and the before and after JSON text, case-insensitively.
+ * type and id, and the before and after JSON text (ASCII letters in any case).
  */
 export function auditWhere(filters: AuditFilters): SQL | undefined {
   const conditions: SQL[] = [];
@@ -48,13 +48,14 @@ export function auditWhere(filters: AuditFilters): SQL | undefined {
   if (filters.from) conditions.push(gte(auditEvents.createdAt, `${filters.from}T00:00:00.000Z`));
   if (filters.to) conditions.push(lt(auditEvents.createdAt, dayAfter(filters.to)));
   if (filters.q) {
+    // SQLite's LIKE ignores case for ASCII letters only; other letters ("Á") match as typed.
     const pattern = likePattern(filters.q);
     conditions.push(or(
-      sql`lower(${auditEvents.action}) like ${pattern} escape '\\'`,
-      sql`lower(${auditEvents.subjectType} || ' ' || ${auditEvents.subjectId}) like ${pattern}
+      sql`${auditEvents.action} like ${pattern} escape '\\'`,
+      sql`(${auditEvents.subjectType} || ' ' || ${auditEvents.subjectId}) like ${pattern}
         escape '\\'`,
-      sql`lower(coalesce(${auditEvents.before}, '')) like ${pattern} escape '\\'`,
-      sql`lower(coalesce(${auditEvents.after}, '')) like ${pattern} escape '\\'`,
+      sql`coalesce(${auditEvents.before}, '') like ${pattern} escape '\\'`,
+      sql`coalesce(${auditEvents.after}, '') like ${pattern} escape '\\'`,
     )!);
   }
   return conditions.length > 0 ? and(...conditions) : undefined;

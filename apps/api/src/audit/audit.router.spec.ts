@@ -56,8 +56,8 @@ beforeAll(async () => {
     createdAt: at(4).toISOString(), updatedAt: at(4).toISOString() }).returning().get().id;
 
   recordAudit(db, { action: 'register.updated', subjectType: 'register_entry',
-    subjectId: north, userId: risk, before: { status: 'open' }, after: { status: 'mitigating' } },
-  at(5));
+    subjectId: north, userId: risk, before: { status: 'open', notes: '' },
+    after: { status: 'mitigating', notes: 'Álvarez-Roca quotes 6 weeks' } }, at(5));
   recordAudit(db, { action: 'plan.created', subjectType: 'plan', subjectId: plan, userId: risk,
     after: { entryId: north, strategy: 'second_source' } }, at(6));
   // A task event that names neither plan nor entry: found through plan_tasks.
@@ -114,6 +114,7 @@ describe('GET /api/audit', () => {
     // The text is searched in before/after JSON, with % taken literally.
     expect(actions(await list({ q: '50%' }))).toEqual(['plan.approved']);
     expect(actions(await list({ q: 'OLD IDEA' }))).toEqual(['task.deleted']);
+    expect(actions(await list({ q: 'Álvarez' }))).toEqual(['register.updated']);
     // And _ too: "plan_" finds the plan_task subjects, not "plan." actions.
     expect(actions(await list({ q: 'plan_' }))).toEqual(['task.deleted', 'task.updated']);
   });
