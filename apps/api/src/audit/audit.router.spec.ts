@@ -208,6 +208,9 @@ describe('GET /api/audit/history/:subjectType/:subjectId', () => {
     const refused = await history('risk_manager', 'user', pia);
     expect(refused.status).toBe(403);
     expect(refused.body.error.message).toMatch(/history of a user is for administrators/);
+    const run = await history('plant_manager', 'analysis_run', 1);
+    expect(run.status).toBe(403);
+    expect(run.body.error.message).toMatch(/^The history of an analysis run is for admin/);
     const allowed = await history('admin', 'user', pia);
     expect(actions(allowed.body as AuditHistoryDto)).toEqual(['user.role_changed']);
   });

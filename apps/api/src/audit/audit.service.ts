@@ -17,6 +17,14 @@ import { auditWhere, type AuditRepository } from './audit.repository';
 /** Subject types whose history anyone who may read the subject sees; others: admins only. */
 export const SHARED_HISTORY_TYPES = ['register_entry', 'plan'] as const;
 
+// Subject types in words, for messages ("the history of an analysis run").
+const SUBJECT_WORDS: Record<string, string> = {
+  user: 'a user',
+  analysis_run: 'an analysis run',
+  network_version: 'a network version',
+  plan_task: 'a plan task',
+};
+
 /** Reads of the audit trail. */
 export class AuditService {
   constructor(private readonly repository: AuditRepository) {}
@@ -62,8 +70,8 @@ export class AuditService {
     }
     if (user.role !== 'admin') {
       throw forbidden(
-        `The history of a ${subjectType} is for administrators; everyone who may read a ` +
-          'register entry or a plan may read its history.',
+        `The history of ${SUBJECT_WORDS[subjectType] ?? `a ${subjectType}`} is for ` +
+          'administrators; everyone who may read a register entry or a plan may read its history.',
         { subjectType, sharedTypes: [...SHARED_HISTORY_TYPES] },
       );
     }
