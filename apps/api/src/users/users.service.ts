@@ -112,8 +112,8 @@ export class UsersService {
       if (plantCodes !== undefined) {
         this.deps.users.replacePlants(id, plantCodes);
       }
-      const after = { role: row!.role, plantCodes: plantCodes ?? currentPlants };
-      for (const event of userChangeEvents(current, currentPlants, row!, after.plantCodes)) {
+      const plantsAfter = plantCodes ?? currentPlants;
+      for (const event of userChangeEvents(current, currentPlants, row!, plantsAfter)) {
         this.deps.users.audit({ ...event, subjectType: 'user', subjectId: id,
           userId: actorId(actor) }, now);
       }
