@@ -132,7 +132,9 @@ describe('a mitigation plan from draft to approval', () => {
       await page.getByRole('button', { name: 'Add a change' }).click();
       await page.getByRole('menuitem', { name: 'Add a qualified source' }).click();
       const change = page.getByRole('listitem', { name: 'Change 1' });
-      await change.getByLabel('Item', { exact: true }).fill(SECOND_SOURCE.itemCode);
+      // S-2-SHARED-A sells one item only, so the editor fills it in.
+      await expect.poll(() => change.getByLabel('Item', { exact: true }).inputValue())
+        .toBe(SECOND_SOURCE.itemCode);
       await change.getByLabel('New source (supplier)').fill(SECOND_SOURCE.supplierCode);
       await expect.poll(() => change.getByLabel('Every buyer it supplies today').isChecked())
         .toBe(true);

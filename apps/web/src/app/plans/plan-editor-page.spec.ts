@@ -17,6 +17,12 @@ import {
   words,
 } from './plan-spec-helpers';
 
+const SELLS = ['S-1-001', 'S-1-002'].map((buyerCode) => ({
+  buyerCode, buyerKind: 'supplier', buyerName: buyerCode, itemCode: 'M-01',
+  supplierCode: 'S-2-SHARED-A', supplierName: 'Kestrel Forgings', sharePct: 100,
+  isQualified: true, qualifiedSources: 1, row: null,
+}));
+
 const OWNERS = {
   items: [
     { id: 2, name: 'Bruno Keller', role: 'buyer' },
@@ -42,6 +48,14 @@ describe('PlanEditorPage', () => {
     backend.expectOne('/api/register/owners').flush(OWNERS);
     backend.expectOne('/api/register/12').flush(registerEntryDetail(12));
     await settle();
+    flushSupplier();
+    await settle();
+  }
+
+  // The editor reads what the entry's supplier sells in the newest version, as a hint.
+  function flushSupplier(sells = SELLS): void {
+    backend.expectOne('/api/network-versions/latest').flush({ id: 3 });
+    backend.expectOne('/api/network-versions/3/suppliers/S-2-SHARED-A').flush({ sells });
   }
 
   function field(name: string, scope: ParentNode = root): HTMLInputElement {
@@ -114,6 +128,9 @@ describe('PlanEditorPage', () => {
     type(field('estimatedCost'), '45000');
     type(field('targetDate'), '3/31/2027');
     const change = await addChange('Add a qualified source');
+    // The supplier sells one item: it is filled in, and the hint says to whom.
+    expect(field('itemCode', change).value).toBe('M-01');
+    expect(words(change.querySelector('mat-hint'))).toBe('S-2-SHARED-A supplies M-01 to 2 buyers.');
     type(field('itemCode', change), 'I-CAST-1');
     type(field('supplierCode', change), 'S-2-ALT');
     expect(field('buyerCode', change)).toBeNull();
@@ -188,6 +205,8 @@ describe('PlanEditorPage', () => {
       can: { edit: true, submit: true, withdraw: true, decideFor: [] },
     }));
     await settle();
+    flushSupplier([]);
+    await settle();
     expect(words(root.querySelector('[role="note"]'))).toContain(
       'Name the caster and its audit date.');
     expect(field('itemCode', root.querySelector('li.editor__row')!).value).toBe('I-CAST-1');
@@ -233,6 +252,8 @@ describe('PlanEditorPage', () => {
     await settle();
     backend.expectOne('/api/register/owners').flush(OWNERS);
     backend.expectOne('/api/plans/7').flush(planDetail(7, { status: 'submitted' }));
+    await settle();
+    flushSupplier([]);
     await settle();
     expect(words(root.querySelector('[role="alert"]'))).toContain('can no longer be edited');
     expect((button(root, 'Save draft') as HTMLButtonElement).disabled).toBe(true);

@@ -11,6 +11,7 @@ import {
 } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
+import { MatAutocomplete, MatAutocompleteTrigger } from '@angular/material/autocomplete';
 import { MatButton, MatIconButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
 import { MatOption, provideNativeDateAdapter } from '@angular/material/core';
@@ -33,8 +34,11 @@ import {
   type PlanChangeKind,
   type PlanDto,
   type PlanEntrySummaryDto,
+  type SourcingLinkDto,
 } from '@keelson/contracts';
-import { type Observable, catchError, concat, map, of, toArray } from 'rxjs';
+import { type Observable, catchError, concat, map, of, switchMap, toArray } from 'rxjs';
+import { NetworkBrowseApi } from '../network/network-browse-api';
+import { NetworkVersionsApi } from '../network/network-versions-api';
 import { RegisterApi } from '../register/register-api';
 import { apiErrorMessage } from '../shared/api-error-message';
 import {
@@ -62,6 +66,8 @@ import { PlansApi } from './plans-api';
   changeDetection: ChangeDetectionStrategy.OnPush,
   providers: [provideNativeDateAdapter()],
   imports: [
+    MatAutocomplete,
+    MatAutocompleteTrigger,
     MatButton,
     MatCheckbox,
     MatDatepicker,
@@ -95,6 +101,8 @@ export class PlanEditorPage {
 
   private readonly plansApi = inject(PlansApi);
   private readonly registerApi = inject(RegisterApi);
+  private readonly versionsApi = inject(NetworkVersionsApi);
+  private readonly browseApi = inject(NetworkBrowseApi);
   private readonly router = inject(Router);
   private readonly snackBar = inject(MatSnackBar);
 
@@ -110,6 +118,21 @@ export class PlanEditorPage {
   protected readonly saveError = signal<string | null>(null);
   protected readonly isNew = computed(() => this.id() === undefined);
   protected readonly form = signal<PlanForm>(planForm());
+  /** What the entry's supplier sells in the newest network version (a hint for the changes). */
+  protected readonly supplierSells = signal<readonly SourcingLinkDto[]>([]);
+  protected readonly soldItems = computed(() => [...new Set(this.supplierSells()
+    .map((link) => link.itemCode))].sort());
+  protected readonly itemHint = 'The item code, as in the Items sheet.';
+  protected readonly soldItemsHint = computed(() => {
+    const entry = this.entrySummary();
+    const items = this.soldItems();
+    if (!entry || items.length === 0) return null;
+    const buyers = (item: string) => this.supplierSells()
+      .filter((link) => link.itemCode === item).length;
+    const list = items.map((item) => `${item} to ${buyers(item)} buyer${buyers(item) === 1
+      ? '' : 's'}`);
+    return `${entry.supplierCode} supplies ${list.join(', ')}.`;
+  });
   protected readonly owners = toSignal(
     this.plansApi.owners().pipe(
       map((answer) => answer.items),
@@ -132,6 +155,9 @@ export class PlanEditorPage {
   protected addChange(kind: PlanChangeKind): void {
     const row = changeForm(kind);
     const entry = this.entrySummary();
+    const items = this.soldItems();
+    // A second source is for what the entry's supplier sells; with one item there is no choice.
+    if (kind === 'add_source' && items.length === 1) row.controls.itemCode.setValue(items[0]!);
     // The what-if is about the entry's supplier; its time to recover is the usual change.
     if (kind === 'set_recovery' && entry) row.controls.supplierCode.setValue(entry.supplierCode);
     this.form().controls.changes.push(row);
@@ -247,6 +273,7 @@ export class PlanEditorPage {
           ratingBand: entry.ratingBand,
           runId: entry.runId,
         });
+        this.loadSupplierSells(entry.supplierCode);
         this.isLoading.set(false);
       },
       error: (error: unknown) => {
@@ -256,11 +283,22 @@ export class PlanEditorPage {
     });
   }
 
+  // Only a hint: without a version or the supplier in it, the fields are typed by hand.
+  private loadSupplierSells(supplierCode: string): void {
+    this.versionsApi.latest().pipe(
+      switchMap((version) => (version === null
+        ? of([])
+        : this.browseApi.supplier(version.id, supplierCode).pipe(map((s) => s.sells)))),
+      catchError(() => of([])),
+    ).subscribe((sells) => this.supplierSells.set(sells));
+  }
+
   private loadPlan(id: number): void {
     this.plansApi.get(id).subscribe({
       next: (plan) => {
         this.plan.set(plan);
         this.entrySummary.set(plan.entry);
+        this.loadSupplierSells(plan.entry.supplierCode);
         this.form.set(planForm(plan));
         if (!plan.can.edit) this.form().disable();
         this.isLoading.set(false);
