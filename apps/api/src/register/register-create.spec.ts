@@ -45,6 +45,14 @@ describe('POST /api/register', () => {
       rating: 4, ratingBand: 'low', notes: '', owner: null, overrides: [] });
     // The plants it serves, from the network version.
     expect(response.body.plants).toEqual(['P-EAST', 'P-NORTH', 'P-SOUTH']);
+    // The creation is in the audit trail, by the risk manager, with what was created.
+    const audit = t.database.sqlite.prepare(`select action, user_id as userId, after
+      from audit_events where subject_type = 'register_entry' and subject_id = ?`)
+      .all(String(response.body.id)) as { action: string; userId: number; after: string }[];
+    expect(audit.map((row) => row.action)).toEqual(['register.created']);
+    expect(audit[0]!.userId).toBe(t.userId(ACCOUNT_OF_ROLE.risk_manager));
+    expect(JSON.parse(audit[0]!.after)).toMatchObject({ entryId: response.body.id,
+      supplierCode: 'S-2-SHARED-A', title: 'Forging capacity', rating: 4, ratingBand: 'low' });
   });
 
   it('takes the scores of the latest finished succeeded run with the supplier', async () => {

@@ -101,12 +101,19 @@ export class RegisterService {
     const settings = loadScoringSettings(db);
     const scored = this.scoreOf(versionId, supplier, settings);
     const stamp = this.deps.now().toISOString();
-    const id = repository.transaction(() => repository.insert({
-      supplierCode: supplier.code, title: input.title, origin: 'manual', status: 'open',
-      ownerId, runId: scored.runId, computedLikelihood: scored.likelihood,
-      impactBand: scored.impactBand, rating: scored.rating, ratingBand: scored.ratingBand,
-      notes: input.notes ?? '', createdBy: user.id, createdAt: stamp, updatedAt: stamp,
-    }, scored.plants));
+    const id = repository.transaction(() => {
+      const created = repository.insert({
+        supplierCode: supplier.code, title: input.title, origin: 'manual', status: 'open',
+        ownerId, runId: scored.runId, computedLikelihood: scored.likelihood,
+        impactBand: scored.impactBand, rating: scored.rating, ratingBand: scored.ratingBand,
+        notes: input.notes ?? '', createdBy: user.id, createdAt: stamp, updatedAt: stamp,
+      }, scored.plants);
+      recordAudit(db, { action: 'register.created', subjectType: 'register_entry',
+        subjectId: created, userId: user.id, after: { entryId: created,
+          supplierCode: supplier.code, title: input.title, ownerId, rating: scored.rating,
+          ratingBand: scored.ratingBand } }, new Date(stamp));
+      return created;
+    });
     return this.detail(user, id);
   }
 
