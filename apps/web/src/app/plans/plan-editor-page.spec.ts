@@ -1,4 +1,5 @@
 import { HttpTestingController } from '@angular/common/http/testing';
+import { Location } from '@angular/common';
 import { TestBed } from '@angular/core/testing';
 import { Router } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
@@ -191,6 +192,45 @@ describe('PlanEditorPage', () => {
     expect(errorsOf(change)).toEqual(['no item I-NOPE']);
     expect(words(root.querySelector('[role="alert"]'))).toContain('did not accept some fields');
     expect(TestBed.inject(Router).url).toBe('/plans/new?entry=12');
+  });
+
+  it('saves, runs the what-if and shows its refusal under the change it names', async () => {
+    await openNew();
+    await choose(field('strategy'), 'Second source');
+    type(field('description') as unknown as HTMLTextAreaElement, 'Qualify a second caster.');
+    const change = await addChange('Add a qualified source');
+    type(field('supplierCode', change), 'S-2-NOPE');
+    button(root, 'Save and run what-if')!.click();
+    await settle();
+    const created = planDetail(7, {
+      changes: [{ kind: 'add_source', itemCode: 'M-01', supplierCode: 'S-2-NOPE',
+        buyerCode: null }],
+      tasks: [],
+      can: { edit: true, submit: true, withdraw: true, decideFor: [] },
+    });
+    backend.expectOne('/api/register/12/plans').flush(created);
+    await settle();
+    const message = 'the network has no supplier S-2-NOPE; describe it in newSupplier to add it';
+    const path = 'body.changes[0].supplierCode';
+    backend.expectOne('/api/plans/7/what-if').flush(
+      { error: { code: 'invalid_request', message: `${path}: ${message}`,
+        details: { issues: [{ path, message }] } } },
+      { status: 400, statusText: 'Bad Request' });
+    await settle();
+    backend.expectOne('/api/plans/7').flush(created);
+    await settle();
+    const row = root.querySelector<HTMLElement>('li.editor__row')!;
+    expect(errorsOf(row)).toEqual([message]);
+    expect(words(root.querySelector('[role="alert"]'))).toContain('The draft is saved');
+    expect(TestBed.inject(Location).path()).toBe('/plans/7/edit');
+    // Saving again edits the saved draft instead of making a second one.
+    type(field('supplierCode', row), 'S-2-011');
+    button(root, 'Save draft')!.click();
+    await settle();
+    const patch = backend.expectOne('/api/plans/7');
+    expect(patch.request.method).toBe('PATCH');
+    patch.flush(created);
+    await settle();
   });
 
   it('edits a returned draft: PATCH for the plan, DELETE and POST for its tasks', async () => {

@@ -1,7 +1,10 @@
+import { Location } from '@angular/common';
 import { HttpErrorResponse } from '@angular/common/http';
 import {
   ChangeDetectionStrategy,
   Component,
+  Injector,
+  afterNextRender,
   computed,
   effect,
   inject,
@@ -104,6 +107,8 @@ export class PlanEditorPage {
   private readonly versionsApi = inject(NetworkVersionsApi);
   private readonly browseApi = inject(NetworkBrowseApi);
   private readonly router = inject(Router);
+  private readonly location = inject(Location);
+  private readonly injector = inject(Injector);
   private readonly snackBar = inject(MatSnackBar);
 
   protected readonly strategies = PLAN_STRATEGIES;
@@ -175,7 +180,11 @@ export class PlanEditorPage {
     this.form().controls.tasks.removeAt(index);
   }
 
-  protected save(): void {
+  /**
+   * Saves the draft and opens the plan; with `thenWhatIf`, runs the what-if first, and when it
+   * refuses a change, stays here with the saved draft and the message under that change's field.
+   */
+  protected save(thenWhatIf = false): void {
     const form = this.form();
     if (this.isSaving()) {
       return;
@@ -191,16 +200,50 @@ export class PlanEditorPage {
     const saved: Observable<number> = plan === null
       ? this.plansApi.create(Number(this.entry()), createPlanValue(form)).pipe(map((p) => p.id))
       : this.saveExisting(plan, form);
-    saved.subscribe({
+    let savedId: number | null = null;
+    saved.pipe(
+      switchMap((id) => {
+        savedId = id;
+        return thenWhatIf ? this.plansApi.runWhatIf(id).pipe(map(() => id)) : of(id);
+      }),
+    ).subscribe({
       next: (id) => {
         this.isSaving.set(false);
-        this.snackBar.open('Draft saved.', 'Close', { duration: 5000 });
+        this.snackBar.open(thenWhatIf ? 'Draft saved; the what-if is up to date.' : 'Draft saved.',
+          'Close', { duration: 5000 });
         void this.router.navigate(['/plans', id]);
       },
       error: (error: unknown) => {
-        this.isSaving.set(false);
-        this.showSaveError(error);
+        if (savedId === null) {
+          this.isSaving.set(false);
+          this.showSaveError(error);
+        } else {
+          this.reopenSaved(savedId, error);
+        }
       },
+    });
+  }
+
+  // The draft is saved but its what-if failed: carry on editing the saved plan (so the next save
+  // is a PATCH with the tasks' new ids), with the refusal under the field it names.
+  private reopenSaved(id: number, error: unknown): void {
+    this.plansApi.get(id).subscribe({
+      next: (plan) => {
+        this.isSaving.set(false);
+        this.plan.set(plan);
+        this.form.set(planForm(plan));
+        this.location.replaceState(`/plans/${id}/edit`);
+        // After the new form is bound: binding a control validates it again, which would drop
+        // an error put on it before.
+        afterNextRender(() => {
+          const issues = fieldIssues(error instanceof HttpErrorResponse ? error.error : null);
+          const unmatched = applyServerErrors(this.form(), issues);
+          this.saveError.set(unmatched.length === 0 && issues.length > 0
+            ? 'The draft is saved, but the what-if refused a change: see the message under it.'
+            : `The draft is saved, but the what-if failed: ${apiErrorMessage(error)}`);
+        }, { injector: this.injector });
+      },
+      error: () => void this.router.navigate(['/plans', id]),
     });
   }
 

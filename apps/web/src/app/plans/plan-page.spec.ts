@@ -114,6 +114,21 @@ describe('PlanPage', () => {
     expect(note).toContain('support a decision');
   });
 
+  it('names the change a what-if refused, by its number', async () => {
+    await open('risk_manager', DRAFT);
+    button(root, 'Run what-if')!.click();
+    await settle();
+    const path = 'body.changes[0].itemCode';
+    const message = 'the network has no item I-CAST-1';
+    backend.expectOne('/api/plans/7/what-if').flush(
+      { error: { code: 'invalid_request', message: `${path}: ${message}`,
+        details: { issues: [{ path, message }] } } },
+      { status: 400, statusText: 'Bad Request' });
+    await settle();
+    expect(words(root.querySelector('[role="alert"] span'))).toBe(
+      'Change 1: the network has no item I-CAST-1. Edit the plan to correct it.');
+  });
+
   it('submits after a confirmation and reads the plan again', async () => {
     await open('risk_manager', DRAFT);
     button(root, 'Submit for approval')!.click();

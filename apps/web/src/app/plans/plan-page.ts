@@ -1,4 +1,5 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
+import { HttpErrorResponse } from '@angular/common/http';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -29,12 +30,26 @@ import { RatingChip } from '../register/rating-chip';
 import { apiErrorMessage } from '../shared/api-error-message';
 import { HistoryPanel } from '../shared/history-panel/history-panel';
 import { type DecisionDialogData, DecisionDialog } from './decision-dialog';
+import { fieldIssues, formPathOf } from './plan-form';
 import { PLAN_WRITERS, describeChange } from './plan-labels';
 import { PlanStatusChip } from './plan-status-chip';
 import { PlansApi } from './plans-api';
 import { TaskComments } from './task-comments';
 import { TaskStatusMenu } from './task-status-menu';
 import { WhatIfTable } from './what-if-table';
+
+/**
+ * What to show when an action failed: a what-if's refusal of a change names the change by its
+ * number ("Change 1: ..."), as the page lists them; anything else is the server's message.
+ */
+export function actionErrorMessage(error: unknown): string {
+  const issue = fieldIssues(error instanceof HttpErrorResponse ? error.error : null)[0];
+  const path = issue ? formPathOf(issue.path) : [];
+  if (issue && path[0] === 'changes' && /^\d+$/.test(path[1] ?? '')) {
+    return `Change ${Number(path[1]) + 1}: ${issue.message}. Edit the plan to correct it.`;
+  }
+  return apiErrorMessage(error);
+}
 
 /**
  * One mitigation plan: its entry and supplier, the proposed changes with the what-if's numbers,
@@ -187,7 +202,7 @@ export class PlanPage {
       },
       error: (error: unknown) => {
         this.isBusy.set(false);
-        this.actionError.set(apiErrorMessage(error));
+        this.actionError.set(actionErrorMessage(error));
       },
     });
   }
