@@ -6,5 +6,6 @@ export * from './network-picture';
 export * from './notifications';
 export * from './plans';
 export * from './register';
+export * from './rescoring';
 export * from './runs';
 export * from './supply-model';

@@ -10,6 +10,14 @@ export const REGISTER_STATUSES = ['open', 'mitigating', 'accepted', 'closed'] as
 /** One of {@link REGISTER_STATUSES}. */
 export type RegisterStatus = (typeof REGISTER_STATUSES)[number];
 
+/**
+ * What a quarterly re-scoring noticed about an entry: its supplier is no longer in the network,
+ * or it no longer matters (not a single point of failure, rated low). People decide.
+ */
+export const REGISTER_FLAGS = ['supplier_removed', 'no_longer_matters'] as const;
+/** One of {@link REGISTER_FLAGS}. */
+export type RegisterFlag = (typeof REGISTER_FLAGS)[number];
+
 /** One override of an entry's likelihood. */
 export interface LikelihoodOverrideDto {
   id: number;
@@ -40,6 +48,8 @@ export interface RegisterEntryDto {
   rating: number;
   ratingBand: RatingBand;
   notes: string;
+  /** Set by the last quarterly re-scoring; null when it noticed nothing. */
+  flag: RegisterFlag | null;
   createdAt: string;
   updatedAt: string;
 }

@@ -553,6 +553,12 @@ export const registerEntries = sqliteTable(
     rating: integer('rating').notNull(),
     ratingBand: text('rating_band', { enum: ['low', 'medium', 'high', 'critical'] }).notNull(),
     notes: text('notes').notNull().default(''),
+    /**
+     * Set by a re-scoring: `supplier_removed` (not in the network any more) or
+     * `no_longer_matters` (no longer a single point of failure and rated low); null otherwise.
+     * People decide what to do with a flagged entry.
+     */
+    flag: text('flag', { enum: ['supplier_removed', 'no_longer_matters'] }),
     createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: text('created_at').notNull(),
     updatedAt: text('updated_at').notNull(),
@@ -727,6 +733,82 @@ export const auditEvents = sqliteTable(
   (table) => [
     index('audit_events_subject_index').on(table.subjectType, table.subjectId),
     index('audit_events_created_index').on(table.createdAt),
+  ],
+);
+
+/** Statuses of a quarterly re-scoring; the same list as `RESCORING_STATUSES` in contracts. */
+export const RESCORING_STATUS_VALUES = ['queued', 'running', 'succeeded', 'failed',
+  'interrupted', 'cancelled'] as const;
+
+/**
+ * Quarterly re-scoring runs: the whole supply base re-analysed against a network version and
+ * the register re-scored with it, once per quarter label. The partial unique index is the
+ * quarter's lock: at most one unforced re-scoring per label that is queued, running,
+ * interrupted or succeeded, so two clicks, or a click during the scheduled run, never make two.
+ */
+export const rescoringRuns = sqliteTable(
+  'rescoring_runs',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    /** `2027-Q1`: the calendar quarter, in the schedule's time zone. */
+    quarterLabel: text('quarter_label').notNull(),
+    networkVersionId: integer('network_version_id')
+      .notNull()
+      .references(() => networkVersions.id),
+    /** The analysis run of the current attempt (a resumed re-scoring gets a new one). */
+    analysisRunId: integer('analysis_run_id').references(() => analysisRuns.id,
+      { onDelete: 'set null' }),
+    status: text('status', { enum: RESCORING_STATUS_VALUES }).notNull(),
+    /** `schedule` (the quarterly timetable) or `manual` (Start re-scoring). */
+    trigger: text('trigger', { enum: ['schedule', 'manual'] }).notNull(),
+    /** An admin's second re-scoring of a quarter that already has one (outside the lock). */
+    isForced: integer('is_forced', { mode: 'boolean' }).notNull().default(false),
+    attempts: integer('attempts').notNull().default(1),
+    /** What changed (`RescoringSummaryDto`), JSON; null until it succeeds. */
+    summary: text('summary', { mode: 'json' }).$type<Record<string, unknown>>(),
+    error: text('error'),
+    startedBy: integer('started_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: text('created_at').notNull(),
+    startedAt: text('started_at'),
+    finishedAt: text('finished_at'),
+  },
+  (table) => [
+    uniqueIndex('rescoring_runs_quarter_lock').on(table.quarterLabel)
+      .where(sql`is_forced = 0 and status in ('queued', 'running', 'interrupted', 'succeeded')`),
+    index('rescoring_runs_created_index').on(table.createdAt),
+  ],
+);
+
+/**
+ * A register entry's score at each re-scoring: the history the quarter comparison, the trends
+ * and the owners' e-mails read. Written in the re-scoring's own transaction.
+ */
+export const registerEntryScores = sqliteTable(
+  'register_entry_scores',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    entryId: integer('entry_id')
+      .notNull()
+      .references(() => registerEntries.id, { onDelete: 'cascade' }),
+    rescoringRunId: integer('rescoring_run_id')
+      .notNull()
+      .references(() => rescoringRuns.id, { onDelete: 'cascade' }),
+    likelihood: integer('likelihood').notNull(),
+    impactBand: integer('impact_band').notNull(),
+    rating: integer('rating').notNull(),
+    ratingBand: text('rating_band', { enum: ['low', 'medium', 'high', 'critical'] }).notNull(),
+    /** The rating before this re-scoring; null for an entry it created. */
+    previousRating: integer('previous_rating'),
+    previousRatingBand: text('previous_rating_band',
+      { enum: ['low', 'medium', 'high', 'critical'] }),
+    revenueImpact: real('revenue_impact'),
+    /** `supplier_removed`, `no_longer_matters` or null: see `register_entries.flag`. */
+    flag: text('flag', { enum: ['supplier_removed', 'no_longer_matters'] }),
+    createdAt: text('created_at').notNull(),
+  },
+  (table) => [
+    uniqueIndex('register_entry_scores_once').on(table.rescoringRunId, table.entryId),
+    index('register_entry_scores_entry_index').on(table.entryId),
   ],
 );
 

@@ -30,6 +30,7 @@ export function toRegisterEntryDto(
     rating: record.rating,
     ratingBand: record.ratingBand,
     notes: record.notes,
+    flag: record.flag,
     createdAt: record.createdAt,
     updatedAt: record.updatedAt,
   };

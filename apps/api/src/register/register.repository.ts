@@ -257,5 +257,5 @@ const entryColumns = {
   ownerId: e.ownerId, runId: e.runId, computedLikelihood: e.computedLikelihood,
   likelihoodOverride: e.likelihoodOverride, impactBand: e.impactBand, rating: e.rating,
   ratingBand: e.ratingBand, notes: e.notes, createdBy: e.createdBy, createdAt: e.createdAt,
-  updatedAt: e.updatedAt,
+  updatedAt: e.updatedAt, flag: e.flag,
 };

@@ -29,6 +29,7 @@ export function registerEntry(id: number, overrides: Partial<RegisterEntryDto> =
     rating,
     ratingBand: ratingBandOf(rating),
     notes: '',
+    flag: null,
     createdAt: '2026-11-20T09:00:00.000Z',
     updatedAt: '2026-11-28T16:30:00.000Z',
     ...overrides,
