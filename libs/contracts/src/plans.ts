@@ -102,7 +102,11 @@ export interface WhatIfSideDto {
   productsLost: string[];
   revenueExposedPerWeek: number;
   revenueImpact: number;
-  /** Weeks until the last lost product is back. */
+  /**
+   * The supplier's time to recover in weeks (spec section 4: the largest recovery_weeks of the
+   * failure set), whether or not anything is lost; a product's lost weeks are this minus its
+   * stock cover.
+   */
   timeToRecover: number;
   singlePointOfFailure: boolean;
   impactBand: number;

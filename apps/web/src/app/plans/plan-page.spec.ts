@@ -104,7 +104,7 @@ describe('PlanPage', () => {
     expect(rows).toEqual([
       ['Products lost', '2 P-100, P-200', '0'],
       ['Revenue impact', '1,440,000', '0'],
-      ['Time to recover', '12 weeks', '0 weeks'],
+      ["Supplier's time to recover", '12 weeks', '0 weeks'],
       ['Rating', '5 x 4 = ▲ 20 Critical', '1 x 4 = ○ 4 Low'],
       ['Single point of failure', 'Yes', 'No longer'],
     ]);

@@ -50,7 +50,12 @@ import { RatingChip } from '../register/rating-chip';
           <td>{{ result.after.revenueImpact | number: '1.0-0' }}</td>
         </tr>
         <tr>
-          <th scope="row">Time to recover</th>
+          <th
+            scope="row"
+            title="How long the supplier takes to come back; lost weeks are this minus cover"
+          >
+            Supplier's time to recover
+          </th>
           <td>{{ result.before.timeToRecover | number: '1.0-1' }} weeks</td>
           <td>{{ result.after.timeToRecover | number: '1.0-1' }} weeks</td>
         </tr>
