@@ -56,6 +56,11 @@ export const routes: Routes = [
         loadChildren: () => import('./register/register.routes').then((m) => m.registerRoutes),
       },
       {
+        path: 'rescoring',
+        canActivate: [navigationGuard('rescoring')],
+        loadChildren: () => import('./rescoring/rescoring.routes').then((m) => m.rescoringRoutes),
+      },
+      {
         path: 'plans',
         canActivate: [navigationGuard('register')],
         loadChildren: () => import('./plans/plans.routes').then((m) => m.plansRoutes),

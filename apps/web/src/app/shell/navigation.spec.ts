@@ -14,16 +14,16 @@ import {
 // not derived from NAVIGATION itself.
 const EXPECTED: Record<Role, string[]> = {
   admin: ['Home', 'Import', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register', 'Approvals', 'My tasks', 'E-mail settings', 'Users', 'Sent mail',
-    'Countries', 'Scoring', 'Audit trail'],
+    'Risk register', 'Quarterly re-scoring', 'Approvals', 'My tasks', 'E-mail settings',
+    'Users', 'Sent mail', 'Countries', 'Scoring', 'Audit trail'],
   buyer: ['Home', 'Import', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register', 'My tasks', 'E-mail settings'],
+    'Risk register', 'Quarterly re-scoring', 'My tasks', 'E-mail settings'],
   risk_manager: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register', 'Approvals', 'My tasks', 'E-mail settings'],
+    'Risk register', 'Quarterly re-scoring', 'Approvals', 'My tasks', 'E-mail settings'],
   plant_manager: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register', 'Approvals', 'My tasks', 'E-mail settings'],
+    'Risk register', 'Quarterly re-scoring', 'Approvals', 'My tasks', 'E-mail settings'],
   viewer: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register', 'My tasks', 'E-mail settings'],
+    'Risk register', 'Quarterly re-scoring', 'My tasks', 'E-mail settings'],
 };
 
 describe('navigationFor', () => {

@@ -33,6 +33,7 @@ export const NAVIGATION = [
   // A plan's page (/plans/:id) is part of its register entry.
   { label: 'Risk register', icon: 'fact_check', path: 'register', roles: ROLES,
     owns: /^plans\// },
+  { label: 'Quarterly re-scoring', icon: 'event_repeat', path: 'rescoring', roles: ROLES },
   { label: 'Approvals', icon: 'approval', path: 'approvals',
     roles: ['plant_manager', 'risk_manager', 'admin'] },
   { label: 'My tasks', icon: 'task_alt', path: 'tasks', roles: ROLES },

@@ -14,16 +14,16 @@ import { Shell } from './shell';
 // What each role's sidenav shows, written out from the product brief.
 const EXPECTED_LINKS: Record<Role, string[]> = {
   admin: ['Home', 'Import', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register', 'Approvals', 'My tasks', 'E-mail settings', 'Users', 'Sent mail',
-    'Countries', 'Scoring', 'Audit trail'],
+    'Risk register', 'Quarterly re-scoring', 'Approvals', 'My tasks', 'E-mail settings',
+    'Users', 'Sent mail', 'Countries', 'Scoring', 'Audit trail'],
   buyer: ['Home', 'Import', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register', 'My tasks', 'E-mail settings'],
+    'Risk register', 'Quarterly re-scoring', 'My tasks', 'E-mail settings'],
   risk_manager: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register', 'Approvals', 'My tasks', 'E-mail settings'],
+    'Risk register', 'Quarterly re-scoring', 'Approvals', 'My tasks', 'E-mail settings'],
   plant_manager: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register', 'Approvals', 'My tasks', 'E-mail settings'],
+    'Risk register', 'Quarterly re-scoring', 'Approvals', 'My tasks', 'E-mail settings'],
   viewer: ['Home', 'Network', 'Analysis runs', 'Scenarios', 'Network picture',
-    'Risk register', 'My tasks', 'E-mail settings'],
+    'Risk register', 'Quarterly re-scoring', 'My tasks', 'E-mail settings'],
 };
 
 describe('Shell', () => {
