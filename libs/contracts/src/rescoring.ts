@@ -168,17 +168,28 @@ export interface DashboardDto {
   role: string;
   /** No network imported yet: the page says to import first. */
   hasNetwork: boolean;
-  /** Open entries by rating band (plant managers: their plants). */
+  /**
+   * Open entries by rating band (plant managers: their plants): status `open` or `mitigating`,
+   * the risks still live.
+   */
   openEntriesByBand: Record<RatingBand, number> | null;
+  /** The same entries split by status, so each figure links to one register filter. */
+  entriesByStatus?: Record<'open' | 'mitigating', Record<RatingBand, number>> | null;
   lastRun: { id: number; label: string; finishedAt: string | null; kind: string } | null;
   lastRescoring: (Pick<RescoringRunDto, 'id' | 'quarterLabel' | 'status' | 'finishedAt'> & {
     summary: RescoringSummaryDto | null }) | null;
   /** Plans waiting for approval (risk managers, admins: all; plant managers: theirs). */
   plansAwaitingApproval: number | null;
+  /**
+   * Overdue tasks: to do or doing, due before today (UTC), on an approved or in-progress plan
+   * (risk managers, admins: all; plant managers: their own).
+   */
   overdueTasks: number | null;
+  /** Risk managers, admins: how many of the overdue tasks are their own (My tasks lists them). */
+  myOverdueTasks?: number | null;
   /** Plant managers: their plants' top register entries. */
   topRisks: { id: number; title: string; supplierCode: string; rating: number;
-    ratingBand: RatingBand }[] | null;
+    ratingBand: RatingBand; plants?: string[] }[] | null;
   /** Buyers: the last import and its warnings. */
   lastImport: { id: number; fileName: string; status: string; warningCount: number;
     errorCount: number; createdAt: string } | null;
