@@ -55,6 +55,21 @@ describe('writeWorkbook', () => {
     ]);
   });
 
+  it('writes text that looks like a formula as text, never as a formula', async () => {
+    const model = smallNetworkModel();
+    model.suppliers[0]!.name = '=HYPERLINK("http://example.invalid","open")';
+    model.suppliers[1]!.name = '+1-555-0100';
+    const workbook = await openWorkbook(await writeWorkbook(model));
+    const sheet = workbook.getWorksheet('Suppliers')!;
+    for (const row of [2, 3]) {
+      const cell = sheet.getRow(row).getCell(2);
+      expect(cell.type).toBe(ExcelJS.ValueType.String);
+      expect(cell.formula).toBeUndefined();
+    }
+    const result = await readWorkbook(await writeWorkbook(model));
+    expect(result.model?.suppliers[0]!.name).toBe('=HYPERLINK("http://example.invalid","open")');
+  });
+
   it('writes the sheets in order, headers in row 1, attributes after them', async () => {
     const workbook = await openWorkbook(await writeWorkbook(richModel()));
     expect(workbook.worksheets.map((sheet) => sheet.name)).toEqual([...SHEET_NAMES]);
