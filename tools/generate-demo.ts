@@ -30,5 +30,6 @@ async function write(model: SupplyModel, path: string): Promise<void> {
 }
 
 await write(buildDemoNetwork(), join(root, 'data', 'demo', 'keelson-demo.xlsx'));
-await write(buildDemoNetworkQ2(), join(root, 'data', 'demo', 'keelson-demo-q2.xlsx'));
+await write(buildDemoNetworkQ2(),
+  join(root, 'data', 'demo', 'keelson-demo-q2.xlsx'));
 await write(WORKED_EXAMPLE, join(root, 'data', 'examples', 'worked-example.xlsx'));
