@@ -29,11 +29,17 @@ export interface RescoringFixture {
   analysisRunId: number;
   status?: 'succeeded' | 'failed' | 'running';
   finishedAt: string;
-  /** Entry id to its rating band (rating: a number in the band). */
+  /** Entry id to its rating band (stored with a rating inside the band). */
   scores?: Record<number, RatingBand>;
 }
 
-const RATING_OF_BAND: Record<RatingBand, number> = { low: 2, medium: 8, high: 12, critical: 20 };
+// Impact band x likelihood giving a rating inside each band (default settings).
+const SCORE_OF_BAND: Record<RatingBand, { impactBand: number; likelihood: number }> = {
+  low: { impactBand: 1, likelihood: 2 },
+  medium: { impactBand: 2, likelihood: 4 },
+  high: { impactBand: 3, likelihood: 4 },
+  critical: { impactBand: 5, likelihood: 4 },
+};
 
 /** Inserts a re-scoring and its entry scores; returns the re-scoring's id. */
 export function insertRescoring(t: TestApp, fixture: RescoringFixture): number {
@@ -49,10 +55,11 @@ export function insertRescoring(t: TestApp, fixture: RescoringFixture): number {
   const rescoringId = Number(inserted.lastInsertRowid);
   const score = sqlite.prepare('INSERT INTO register_entry_scores (entry_id, rescoring_run_id, ' +
     'likelihood, impact_band, rating, rating_band, previous_rating, revenue_impact, flag, ' +
-    'created_at) VALUES (?, ?, 4, ?, ?, ?, NULL, ?, NULL, ?)');
+    'created_at) VALUES (?, ?, ?, ?, ?, ?, NULL, ?, NULL, ?)');
   for (const [entryId, band] of Object.entries(fixture.scores ?? {})) {
-    const rating = RATING_OF_BAND[band];
-    score.run(Number(entryId), rescoringId, rating / 4, rating, band, rating * 1000,
+    const { impactBand, likelihood } = SCORE_OF_BAND[band];
+    const rating = impactBand * likelihood;
+    score.run(Number(entryId), rescoringId, likelihood, impactBand, rating, band, rating * 1000,
       fixture.finishedAt);
   }
   return rescoringId;
