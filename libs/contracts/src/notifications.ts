@@ -5,7 +5,8 @@
 import { z } from 'zod';
 
 /** Kinds of e-mail a user can switch off. */
-export const MAIL_KINDS = ['plan_submitted', 'plan_decided', 'task_assigned', 'digest'] as const;
+export const MAIL_KINDS = ['plan_submitted', 'plan_decided', 'task_assigned', 'digest',
+  'rescoring'] as const;
 /** One of {@link MAIL_KINDS}. */
 export type MailKind = (typeof MAIL_KINDS)[number];
 
@@ -15,6 +16,8 @@ export const MAIL_KIND_LABELS: Record<MailKind, string> = {
   plan_decided: 'A decision on a plan I wrote or whose entry I own',
   task_assigned: 'A task is assigned to me',
   digest: 'Weekly digest of overdue tasks',
+  rescoring: 'The quarterly re-scoring has finished (what changed, and my entries whose ' +
+    'rating changed)',
 };
 
 /** GET /api/me/mail-preferences answer and PUT body: the kinds switched off. */

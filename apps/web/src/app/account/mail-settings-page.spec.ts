@@ -72,6 +72,7 @@ describe('MailSettingsPage', () => {
         MAIL_KIND_LABELS.plan_decided,
         MAIL_KIND_LABELS.task_assigned,
         MAIL_KIND_LABELS.digest,
+        MAIL_KIND_LABELS.rescoring,
       ]);
       expect(toggle('plan_submitted').getAttribute('aria-checked')).toBe('true');
       expect(toggle('digest').getAttribute('aria-checked')).toBe('false');
@@ -148,6 +149,6 @@ describe('MailSettingsPage', () => {
     backend.expectOne('/api/me/mail-preferences').flush({ unsubscribed: [] });
     await settle();
     expect(root.querySelector('[role="alert"]')).toBeNull();
-    expect(root.querySelectorAll('mat-slide-toggle')).toHaveLength(4);
+    expect(root.querySelectorAll('mat-slide-toggle')).toHaveLength(5);
   });
 });

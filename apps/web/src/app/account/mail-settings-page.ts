@@ -15,6 +15,8 @@ export const MAIL_KIND_HINTS: Record<MailKind, string> = {
   plan_decided: 'When a plant manager approves or rejects it, with their comment.',
   task_assigned: 'When a task of an approved plan is given to you by someone else.',
   digest: 'Once a week, when tasks you own are overdue (risk managers: every overdue task).',
+  rescoring: 'When a quarterly re-scoring ends: risk managers get what changed, owners their '
+    + 'entries whose rating changed.',
 };
 
 /**
