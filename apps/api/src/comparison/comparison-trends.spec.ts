@@ -8,7 +8,9 @@
 import { readFileSync } from 'node:fs';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { EntryScoreDto, RatingBand, RescoringTrendsDto, SupplyModel } from '@keelson/contracts';
+import type {
+  EntryScoreDto, RatingBand, RescoringTrendsDto, SupplyModel,
+} from '@keelson/contracts';
 import { analyse } from '@keelson/supply-graph';
 import { readWorkbook } from '@keelson/workbook';
 import { demoModel, getAs, runToEnd } from '../runs/run-spec-helpers';
