@@ -41,16 +41,16 @@ export class RunsRepository {
   constructor(private readonly db: KeelsonDatabase) {}
 
   /** Inserts a queued run and returns its id. */
-  insert(values: { networkVersionId: number; label: string; createdBy: number | null;
-    createdAt: string }): number {
+  insert(values: { networkVersionId: number; label: string; kind: AnalysisRunRow['kind'];
+    createdBy: number | null; createdAt: string }): number {
     return this.db.insert(analysisRuns)
-      .values({ ...values, kind: 'manual', status: 'queued', progress: 0 })
+      .values({ ...values, status: 'queued', progress: 0 })
       .returning({ id: analysisRuns.id }).get().id;
   }
 
-  /** One run with its creator's name. */
-  find(id: number): RunRecord | undefined {
-    return this.select().where(eq(analysisRuns.id, id)).get();
+  /** One run with its creator's name (read through `db`, a transaction if given). */
+  find(id: number, db: KeelsonDatabase = this.db): RunRecord | undefined {
+    return this.select(db).where(eq(analysisRuns.id, id)).get();
   }
 
   /** A page of runs, newest first, and how many there are. */
@@ -116,8 +116,8 @@ export class RunsRepository {
       ([code, plantCode]) => [runId, code, plantCode]);
   }
 
-  private select() {
-    return this.db
+  private select(db: KeelsonDatabase = this.db) {
+    return db
       .select({
         id: analysisRuns.id,
         networkVersionId: analysisRuns.networkVersionId,

@@ -3,6 +3,11 @@
  * listeners, cancel, and the outcome. A succeeded run stores every result row, its totals and
  * the scoring settings it used, and syncs the register, in one transaction; a failed or
  * cancelled run stores its status and error and no result rows.
+ *
+ * Other features hook in without owning the run: {@link RunsService.onSucceededInTransaction}
+ * runs code inside the succeeded run's one transaction (before or after the register sync; a
+ * hook that throws rolls the whole run back and the run fails), and
+ * {@link RunsService.onSettled} is called once after a run has finished (committed or not).
  */
 import type {
   AnalysisRunDto,
@@ -48,6 +53,24 @@ const PROGRESS_INTERVAL_MS = 500;
 
 type Listener = (event: RunProgressEvent) => void;
 
+/** The kind of a run: `manual` (Start run) or `quarterly` (a re-scoring's). */
+export type RunKind = AnalysisRunDto['kind'];
+
+/** What {@link RunsService.start} queues: the run's version and label, and its kind. */
+export type StartRunRequest = StartRunInput & { kind?: RunKind };
+
+/**
+ * Code run inside a succeeded run's transaction, with the transaction, the run's row (status
+ * already `succeeded` in `tx`) and the time it finished. Throwing rolls the run back.
+ */
+export type SucceededRunHook = (tx: KeelsonDatabase, run: RunRecord, finishedAt: Date) => void;
+
+/** Where in the transaction a {@link SucceededRunHook} runs, relative to the register sync. */
+export type SucceededHookStage = 'before_register_sync' | 'after_register_sync';
+
+/** Called once after a run has finished (succeeded and committed, failed or cancelled). */
+export type SettledRunHook = (run: AnalysisRunDto) => void | Promise<void>;
+
 /** Starts, follows and cancels analysis runs. */
 export class RunsService {
   private readonly repository: RunsRepository;
@@ -55,6 +78,10 @@ export class RunsService {
   private readonly queue: RunQueue;
   private readonly controllers = new Map<number, AbortController>();
   private readonly listeners = new Map<number, Set<Listener>>();
+  private readonly succeededHooks: { stage: SucceededHookStage; hook: SucceededRunHook }[] = [];
+  private readonly settledHooks: SettledRunHook[] = [];
+  // Runs whose settled hooks have been called (a cancel and the worker's end both report).
+  private readonly announced = new Set<number>();
 
   constructor(private readonly deps: RunsServiceDeps) {
     this.repository = new RunsRepository(deps.db);
@@ -67,14 +94,37 @@ export class RunsService {
     return this.repository.failUnfinished(RESTART_MESSAGE, this.deps.now().toISOString());
   }
 
+  /**
+   * Runs `hook` inside the transaction of every run that succeeds, at `stage` (after the
+   * register sync by default), in the order registered; returns the unregister.
+   */
+  onSucceededInTransaction(hook: SucceededRunHook,
+    stage: SucceededHookStage = 'after_register_sync'): () => void {
+    const registered = { stage, hook };
+    this.succeededHooks.push(registered);
+    return () => {
+      const index = this.succeededHooks.indexOf(registered);
+      if (index !== -1) this.succeededHooks.splice(index, 1);
+    };
+  }
+
+  /**
+   * Calls `hook` once when a run has finished, after its transaction (e-mail goes here). A
+   * hook's rejection is swallowed: it reports its own failures.
+   */
+  onSettled(hook: SettledRunHook): void {
+    this.settledHooks.push(hook);
+  }
+
   /** Queues a run of a network version; resolves once it is queued (not finished). */
-  start(user: SessionUser | null, input: StartRunInput): AnalysisRunDto {
+  start(user: SessionUser | null, input: StartRunRequest): AnalysisRunDto {
     if (!this.repository.versionExists(input.networkVersionId)) {
       throw notFound(`There is no network version ${input.networkVersionId}.`);
     }
     const id = this.repository.insert({
       networkVersionId: input.networkVersionId,
       label: input.label,
+      kind: input.kind ?? 'manual',
       createdBy: user?.id ?? null,
       createdAt: this.deps.now().toISOString(),
     });
@@ -120,6 +170,7 @@ export class RunsService {
       error: 'Cancelled before it finished.', finishedAt: this.deps.now().toISOString() },
     ['queued', 'running']);
     this.controllers.get(id)?.abort();
+    this.announce(id);
     this.emit(id);
     return this.get(id);
   }
@@ -140,6 +191,28 @@ export class RunsService {
     const run = this.get(id);
     return { id, status: run.status, progress: run.progress, stage: run.stage,
       error: run.error };
+  }
+
+  /** Calls the settled hooks once for a finished run. */
+  private announce(id: number): void {
+    if (this.announced.has(id) || this.settledHooks.length === 0) return;
+    const run = this.get(id);
+    if (!FINISHED_STATUSES.includes(run.status)) return;
+    this.announced.add(id);
+    for (const hook of this.settledHooks) {
+      try {
+        void Promise.resolve(hook(run)).catch(() => undefined);
+      } catch {
+        // A hook reports its own failures; the run's outcome is already stored.
+      }
+    }
+  }
+
+  private runSucceededHooks(stage: SucceededHookStage, tx: KeelsonDatabase, run: RunRecord,
+    finishedAt: Date): void {
+    for (const registered of this.succeededHooks) {
+      if (registered.stage === stage) registered.hook(tx, run, finishedAt);
+    }
   }
 
   private emit(id: number, event: RunProgressEvent = this.progressOf(id)): void {
@@ -190,7 +263,10 @@ export class RunsService {
         }, ['running'], tx);
         // Cancelled while the results were computed: roll everything back.
         if (!isMarked) throw new AnalysisCancelledError('storing');
+        const succeeded = this.repository.find(id, tx)!;
+        this.runSucceededHooks('before_register_sync', tx, succeeded, finishedAt);
         const synced = syncRegisterFromRun(tx, id, settings, finishedAt);
+        this.runSucceededHooks('after_register_sync', tx, succeeded, finishedAt);
         recordAudit(tx, { action: 'run.succeeded', subjectType: 'analysis_run', subjectId: id,
           userId: run.createdBy, after: { networkVersionId: run.networkVersionId,
             suppliers: analysis.totals.suppliers,
@@ -211,6 +287,7 @@ export class RunsService {
       }
     } finally {
       this.controllers.delete(id);
+      this.announce(id);
       this.emit(id);
     }
   }
