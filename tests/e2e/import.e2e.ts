@@ -13,6 +13,7 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ERROR_FILL_ARGB, readWorkbook, writeWorkbook } from '@keelson/workbook';
 import { openBrowser, screenshot, type BrowserSession } from './browser';
+import { signIn } from './journey-steps';
 import { startTestServer, type TestServer } from './server';
 
 /** An invented supplier name the journey looks for after the commit. */
@@ -47,14 +48,6 @@ async function messyWorkbook(path: string, isBroken: boolean): Promise<void> {
   writeFileSync(path, Buffer.from(await book.xlsx.writeBuffer()));
 }
 
-async function signInAsBuyer(page: Page, url: string): Promise<void> {
-  await page.goto(`${url}/sign-in`);
-  await page.getByLabel('E-mail').fill('buyer@demo.test');
-  await page.getByLabel('Password').fill('keelson-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/home/);
-}
-
 async function upload(page: Page, path: string): Promise<void> {
   await page.locator('input[type="file"]').setInputFiles(path);
 }
@@ -79,7 +72,7 @@ describe('the buyer imports a messy supplier spreadsheet', () => {
 
   it('maps, sees the errors, downloads the report, fixes, commits and finds the supplier', async () => {
     const page = await browser.newPage();
-    await signInAsBuyer(page, server.url);
+    await signIn(page, server.url, 'buyer@demo.test');
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Import' })
       .click();
     await expect.poll(() => page.getByText('Drop your file here, or choose one').count()).toBe(1);

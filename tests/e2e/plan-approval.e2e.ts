@@ -9,7 +9,8 @@
  */
 import type { Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openBrowser, screenshot, type BrowserSession } from './browser';
+import { openBrowser, type BrowserSession } from './browser';
+import { apiGet, fullPageShot, signIn, startRunFromScreen } from './journey-steps';
 import { startTestServer, type TestServer } from './server';
 
 /**
@@ -24,45 +25,6 @@ const TASK_TITLE = 'Audit S-2-011 and release its first M-01 order';
 function typedDate(days: number): string {
   const date = new Date(Date.now() + days * 86_400_000);
   return `${date.getMonth() + 1}/${date.getDate()}/${date.getFullYear()}`;
-}
-
-async function signIn(page: Page, url: string, email: string): Promise<void> {
-  await page.context().clearCookies();
-  await page.goto(`${url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('keelson-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/home/);
-}
-
-/** A JSON GET made by the page itself, with its session cookie. */
-async function apiGet<T>(page: Page, path: string): Promise<T> {
-  return page.evaluate(async (url) => {
-    const response = await fetch(url, { credentials: 'same-origin' });
-    return (await response.json()) as unknown;
-  }, path) as Promise<T>;
-}
-
-/**
- * A screenshot of the whole page: the shell scrolls inside its content pane, so the window is
- * made as tall as the content first; snack bars are closed and focus is let go of.
- */
-async function shot(page: Page, name: string): Promise<void> {
-  for (const close of await page.locator('mat-snack-bar-container button').all()) {
-    await close.click();
-  }
-  await page.locator('mat-snack-bar-container').waitFor({ state: 'detached' });
-  // Strings, not functions: this file is typed without the DOM library.
-  await page.evaluate('document.activeElement && document.activeElement.blur()');
-  await page.mouse.move(0, 0);
-  const size = page.viewportSize()!;
-  const content = await page.evaluate<number>(
-    "(document.querySelector('mat-sidenav-content') || document.body).scrollHeight");
-  const height = content + 64;
-  await page.setViewportSize({ width: size.width, height: Math.max(size.height, height) });
-  await page.waitForTimeout(300);
-  await screenshot(page, name);
-  await page.setViewportSize(size);
 }
 
 /** Picks `option` in the mat-select labelled `label` inside `scope`. */
@@ -103,14 +65,9 @@ describe('a mitigation plan from draft to approval', () => {
     async () => {
       const page = await browser.newPage();
       await signIn(page, server.url, 'risk@demo.test');
-      const navigation = page.getByRole('navigation', { name: 'Main' });
 
       // 1. A run on the demo network puts S-2-SHARED-A in the register automatically.
-      await navigation.getByRole('link', { name: 'Analysis runs' }).click();
-      await page.getByRole('button', { name: 'Start a run' }).click();
-      await page.getByRole('dialog').getByLabel('Label').fill('Plan review');
-      await page.getByRole('dialog').getByRole('button', { name: 'Start' }).click();
-      await page.waitForURL(/\/runs\/\d+/, { timeout: 60_000 });
+      await startRunFromScreen(page, 'Plan review');
       const register = await apiGet<{ items: { id: number; supplierCode: string }[] }>(
         page, '/api/register?q=S-2-SHARED-A');
       const entry = register.items.find((item) => item.supplierCode === 'S-2-SHARED-A');
@@ -143,7 +100,7 @@ describe('a mitigation plan from draft to approval', () => {
       await task.getByLabel('Task', { exact: true }).fill(TASK_TITLE);
       await choose(page, task, 'Owner', 'Bruno Keller');
       await task.getByLabel('Due date').fill(typedDate(30));
-      await shot(page, 'plan-1-editor');
+      await fullPageShot(page, 'plan-1-editor');
       await page.getByRole('button', { name: 'Save draft' }).click();
       await page.waitForURL(/\/plans\/\d+$/, { timeout: 15_000 });
       const planId = Number(/\/plans\/(\d+)$/.exec(page.url())![1]);
@@ -157,7 +114,7 @@ describe('a mitigation plan from draft to approval', () => {
         .toEqual([' Yes ', ' No longer '].map((text) => expect.stringContaining(text.trim())));
       await expect.poll(() => page.locator('.what-if__note').textContent())
         .toMatch(/numbers the plan is approved on: computed on network version \d+/);
-      await shot(page, 'plan-2-what-if');
+      await fullPageShot(page, 'plan-2-what-if');
 
       // 4. Submit: both plants the risk touches must decide.
       await page.getByRole('button', { name: 'Submit for approval' }).click();
@@ -178,7 +135,7 @@ describe('a mitigation plan from draft to approval', () => {
       await expect.poll(() => card.getByRole('link', { name: /risk page/ }).getAttribute('href'))
         .toMatch(/^\/risk\/\d+\/suppliers\/S-2-SHARED-A$/);
       expect(await card.getByRole('button', { name: 'Approve for P-SOUTH' }).count()).toBe(0);
-      await shot(page, 'plan-3-approvals');
+      await fullPageShot(page, 'plan-3-approvals');
       await approve(page, planId, 'P-NORTH');
 
       // 6. P-SOUTH's manager approves too: the plan is approved and its task starts.
@@ -190,7 +147,7 @@ describe('a mitigation plan from draft to approval', () => {
       const decisions = page.getByRole('table', { name: 'Decisions' });
       await expect.poll(() => decisions.getByRole('row').count()).toBe(3);
       await page.getByRole('heading', { name: 'History' }).waitFor();
-      await shot(page, 'plan-4-approved');
+      await fullPageShot(page, 'plan-4-approved');
 
       // 7. The administrator sees the submission and decision e-mails in the sink.
       await signIn(page, server.url, 'admin@demo.test');
@@ -202,7 +159,7 @@ describe('a mitigation plan from draft to approval', () => {
       expect(subjects).toContain('Plan approved for P-NORTH');
       expect(subjects).toContain('Plan approved for P-SOUTH');
       expect(subjects).toContain(`Task assigned to you: ${TASK_TITLE}`);
-      await shot(page, 'plan-5-mail');
+      await fullPageShot(page, 'plan-5-mail');
 
       // 8. The buyer finds the task in My tasks.
       await signIn(page, server.url, 'buyer@demo.test');
@@ -212,7 +169,7 @@ describe('a mitigation plan from draft to approval', () => {
       await expect.poll(() => tasks.textContent(), { timeout: 15_000 }).toContain(TASK_TITLE);
       await expect.poll(() => tasks.getByRole('button', { name: `Mark done: ${TASK_TITLE}` })
         .count()).toBe(1);
-      await shot(page, 'plan-6-my-tasks');
+      await fullPageShot(page, 'plan-6-my-tasks');
 
       // 9. The audit trail shows the submission and both approvals.
       await signIn(page, server.url, 'admin@demo.test');
@@ -225,7 +182,7 @@ describe('a mitigation plan from draft to approval', () => {
         { timeout: 15_000 }).toBe(2);
       expect(await actions()).toContain('plan.submitted');
       expect(await actions()).toContain('plan.created');
-      await shot(page, 'plan-7-audit');
+      await fullPageShot(page, 'plan-7-audit');
       await page.close();
     });
 });

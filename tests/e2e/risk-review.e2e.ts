@@ -4,26 +4,10 @@
  * with a reason in the register, filter the ranking from a heat-map cell, and evaluate a
  * country scenario. Screenshots of each screen go to docs/screens/review-*.png.
  */
-import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openBrowser, screenshot, type BrowserSession } from './browser';
+import { apiGet, signIn, startRunFromScreen } from './journey-steps';
 import { startTestServer, type TestServer } from './server';
-
-async function signIn(page: Page, url: string, email: string): Promise<void> {
-  await page.goto(`${url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('keelson-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/home/);
-}
-
-/** A JSON GET made by the page itself, with its session cookie. */
-async function apiGet<T>(page: Page, path: string): Promise<T> {
-  return page.evaluate(async (url) => {
-    const response = await fetch(url, { credentials: 'same-origin' });
-    return (await response.json()) as unknown;
-  }, path) as Promise<T>;
-}
 
 describe('the risk manager reviews the single points of failure', () => {
   let server: TestServer;
@@ -45,12 +29,7 @@ describe('the risk manager reviews the single points of failure', () => {
       const navigation = page.getByRole('navigation', { name: 'Main' });
 
       // 1. Start a run on the demo network; it finishes and its ranking opens.
-      await navigation.getByRole('link', { name: 'Analysis runs' }).click();
-      await page.getByRole('button', { name: 'Start a run' }).click();
-      await page.getByRole('dialog').getByLabel('Label').fill('December review');
-      await page.getByRole('dialog').getByRole('button', { name: 'Start' }).click();
-      await page.waitForURL(/\/runs\/\d+/, { timeout: 60_000 });
-      const runId = Number(/\/runs\/(\d+)/.exec(page.url())![1]);
+      const runId = await startRunFromScreen(page, 'December review');
       const run = await apiGet<{ status: string; progress: number }>(
         page, `/api/analysis-runs/${runId}`);
       expect(run).toMatchObject({ status: 'succeeded', progress: 1 });
