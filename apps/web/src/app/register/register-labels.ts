@@ -2,6 +2,7 @@ import {
   RATING_BANDS,
   REGISTER_STATUSES,
   type RatingBand,
+  type RegisterFlag,
   type RegisterStatus,
 } from '@keelson/contracts';
 
@@ -49,3 +50,22 @@ export function isRatingBand(value: string | undefined): value is RatingBand {
 
 /** The roles that create and edit register entries and override likelihoods. */
 export const REGISTER_WRITERS = ['risk_manager', 'admin'] as const;
+
+/** What each re-scoring flag is called on screen (a short chip). */
+export const FLAG_LABELS: Readonly<Record<RegisterFlag, string>> = {
+  supplier_removed: 'Supplier removed',
+  no_longer_matters: 'No longer matters',
+};
+
+/**
+ * What each flag means, for a tooltip or a banner: the re-scoring raised it, a person decides
+ * what happens to the entry.
+ */
+export const FLAG_EXPLANATIONS: Readonly<Record<RegisterFlag, string>> = {
+  supplier_removed:
+    'The last quarterly re-scoring did not find this supplier in the network any more. ' +
+    'Check whether it was replaced, then close the entry or keep it with a note.',
+  no_longer_matters:
+    'At the last quarterly re-scoring this supplier was no longer a single point of failure ' +
+    'and rated low. Decide whether to close the entry; nothing is closed automatically.',
+};

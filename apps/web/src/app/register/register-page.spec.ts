@@ -280,4 +280,27 @@ describe('RegisterPage', () => {
       'Rania Okafor',
     ]);
   });
+
+  it('marks an entry flagged by the re-scoring, and says what the flag means', async () => {
+    const flagged = [
+      registerEntry(21, { flag: 'supplier_removed' }),
+      registerEntry(22, { flag: 'no_longer_matters' }),
+      ...ROWS,
+    ];
+    (await open('/register')).flush({ items: flagged, total: 4 });
+    await settle();
+    const chips = [...root.querySelectorAll<HTMLElement>('.register__flag')];
+    expect(chips.map(words)).toEqual(['flag Supplier removed', 'flag No longer matters']);
+    expect(chips[0]!.getAttribute('aria-label')).toContain(
+      'did not find this supplier in the network any more',
+    );
+    expect(chips[1]!.getAttribute('aria-label')).toContain('nothing is closed automatically');
+    chips[0]!.dispatchEvent(new Event('focus'));
+    await settle();
+    await new Promise((resolve) => setTimeout(resolve, 50));
+    await settle();
+    expect(words(document.querySelector('.cdk-overlay-container') ?? document.body)).toContain(
+      'Check whether it was replaced',
+    );
+  });
 });

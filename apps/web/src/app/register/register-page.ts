@@ -14,7 +14,7 @@ import { MatSort, MatSortHeader } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltip } from '@angular/material/tooltip';
 import { Router, RouterLink } from '@angular/router';
-import type { RegisterEntryDto } from '@keelson/contracts';
+import type { RegisterEntryDto, RegisterFlag } from '@keelson/contracts';
 import { Session } from '../auth/session';
 import { plantOptions } from '../network/filter-options';
 import { pagedRows } from '../network/paged-rows';
@@ -27,6 +27,8 @@ import { StatusChip } from './status-chip';
 import {
   BANDS,
   BAND_LABELS,
+  FLAG_EXPLANATIONS,
+  FLAG_LABELS,
   REGISTER_WRITERS,
   STATUSES,
   STATUS_LABELS,
@@ -119,6 +121,15 @@ export class RegisterPage {
   protected readonly page = pagedRows(toObservable(this.query), (query) =>
     this.registerApi.list(query),
   );
+
+  // Table cells are untyped in templates; these keep the flag's lookups checked.
+  protected flagLabel(flag: RegisterFlag): string {
+    return FLAG_LABELS[flag];
+  }
+
+  protected flagExplanation(flag: RegisterFlag): string {
+    return FLAG_EXPLANATIONS[flag];
+  }
 
   protected clearFilters(): void {
     this.table.setFilters({ q: undefined, status: undefined, ratingBand: undefined,
