@@ -86,8 +86,9 @@ export function mountSecondRescoring(t: TestApp, options: {
   };
   const runs = new RunsService({ db: t.database.db, now: () => t.clock.now,
     analyser: options.analyser, queue: new RunQueue() });
+  // No scheduler given: the module's own choice (none in test mode).
   const mounted = mountRescoringRoutes(express(), deps, runs,
-    { scheduler: options.scheduler ?? null });
+    'scheduler' in options ? { scheduler: options.scheduler } : {});
   return { ...mounted, runs, async close() {
     for (const close of closers.splice(0).reverse()) await close();
   } };
