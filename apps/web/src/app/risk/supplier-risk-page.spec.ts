@@ -6,6 +6,7 @@ import { By } from '@angular/platform-browser';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { entryScore } from '../rescoring/rescoring-fixtures';
 import { SUPPLIER_RISK } from './risk-fixtures';
 import { ScoreHistoryChart } from './score-history-chart';
 import { SupplierRiskPage, surviveRecoverBars } from './supplier-risk-page';
@@ -41,6 +42,11 @@ describe('SupplierRiskPage', () => {
     root = harness.routeNativeElement!;
     await settle();
     backend.expectOne('/api/analysis-runs/12/suppliers/S-2-SHARED-A').flush(SUPPLIER_RISK);
+    await settle();
+    backend.expectOne('/api/comparison/entries/42/scores').flush([
+      entryScore('2026-Q4', 20, { previousRating: 15 }),
+      entryScore('2026-Q3', 15, { previousRating: null, revenueImpact: 400_000 }),
+    ]);
     await settle();
   });
 
@@ -109,5 +115,26 @@ describe('SupplierRiskPage', () => {
     expect(words(root)).toContain('no other source raises its share');
     expect(words(root)).toContain('common practice, not a standard');
     expect(words(root)).toContain("your company's own procedures");
+  });
+
+  it('shows the register entry\'s rating per quarter, oldest first', () => {
+    const quarters = [...root.querySelectorAll('ol[aria-label="Rating per quarter"] li')]
+      .map(words);
+    expect(quarters).toEqual([
+      '2026-Q3 ● 15 High revenue impact 400,000',
+      '2026-Q4 ▲ 20 Critical +5 since before revenue impact 540,000',
+    ]);
+  });
+
+  it('shows no quarterly trend when the entry has no scores yet', async () => {
+    await harness.navigateByUrl('/risk/12/suppliers/S-1-0001');
+    await settle();
+    backend.expectOne('/api/analysis-runs/12/suppliers/S-1-0001').flush(
+      { ...SUPPLIER_RISK, code: 'S-1-0001', registerEntryId: 43 });
+    await settle();
+    backend.expectOne('/api/comparison/entries/43/scores').flush([]);
+    await settle();
+    expect(root.querySelector('kl-entry-quarter-trend')?.children).toHaveLength(0);
+    expect(words(root)).not.toContain('Per quarter');
   });
 });

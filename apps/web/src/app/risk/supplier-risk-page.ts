@@ -7,6 +7,7 @@ import { MatProgressBar } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import type { RunSupplierDetailDto } from '@keelson/contracts';
 import { catchError, combineLatest, map, of, startWith, switchMap } from 'rxjs';
+import { EntryQuarterTrend } from '../rescoring/entry-quarter-trend';
 import { apiErrorMessage } from '../shared/api-error-message';
 import { FailurePathPicture } from './failure-path-picture';
 import { explainMeasures, likelihoodFactorRows } from './measure-explanations';
@@ -51,15 +52,16 @@ export function surviveRecoverBars(supplier: RunSupplierDetailDto): SurviveRecov
  * A supplier's risk in one analysis run: why it matters (products lost, revenue exposed, revenue
  * impact, single point of failure, rank), the failure paths to each product it would stop, time
  * to survive against time to recover per product, its network measures explained, its register
- * score with a link to the register entry, and the history of its scores across runs. Every
- * figure is decision support; the page says what it assumes.
+ * score with a link to the register entry, the history of its scores across runs and, once its
+ * entry has been through a quarterly re-scoring, its rating per quarter. Every figure is
+ * decision support; the page says what it assumes.
  */
 @Component({
   selector: 'kl-supplier-risk-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    DecimalPipe, FailurePathPicture, MatAnchor, MatIcon, MatProgressBar, RouterLink,
-    ScoreHistoryChart,
+    DecimalPipe, EntryQuarterTrend, FailurePathPicture, MatAnchor, MatIcon, MatProgressBar,
+    RouterLink, ScoreHistoryChart,
   ],
   templateUrl: './supplier-risk-page.html',
   styleUrl: './supplier-risk-page.scss',
