@@ -146,7 +146,7 @@ export interface QuarterTrendDto {
   criticalEntries: number;
 }
 
-/** GET /api/rescoring/trends answer, oldest quarter first. */
+/** GET /api/comparison/trends answer, oldest quarter first. */
 export interface RescoringTrendsDto {
   items: QuarterTrendDto[];
 }
