@@ -38,6 +38,7 @@ const linksOf = (card: DashboardCard): DashboardLink[] => [
   ...(card.risks ?? []).map((risk) => risk.link),
   ...(card.empty?.action ? [card.empty.action] : []),
   ...(card.more ? [card.more] : []),
+  ...(card.also ? [card.also] : []),
 ];
 
 describe('dashboardCards', () => {
@@ -70,8 +71,8 @@ describe('dashboardCards', () => {
       ['2026-Q1', 'finished', '/rescoring'],
       [3, 'ratings changed', '/rescoring/compare'],
       [2, 'new entries', '/rescoring/compare'],
-      [1, 'suppliers no longer in the network', '/rescoring/compare'],
-      [0, 'entries that no longer matter', '/rescoring/compare'],
+      [1, 'suppliers removed', '/rescoring/compare'],
+      [0, 'no longer matter', '/rescoring/compare'],
     ]);
     expect(rescoring.more?.label).toBe('See what changed');
   });
@@ -83,7 +84,7 @@ describe('dashboardCards', () => {
         rating: 12, ratingBand: 'high', plants: ['P-NORTH', 'P-SOUTH'] }],
       plansAwaitingApproval: 1, overdueTasks: 0 };
     const cards = dashboardCards(dto, 'plant_manager');
-    expect(cards.map((card) => card.id)).toEqual(['register', 'risks', 'approvals', 'tasks']);
+    expect(cards.map((card) => card.id)).toEqual(['risks', 'approvals', 'register', 'tasks']);
     expect(cardOf(cards, 'register').title).toBe('Open risks at your plants');
     const risks = cardOf(cards, 'risks').risks!;
     expect(risks.map((risk) => [risk.title, risk.plants, url(risk.link)]))
@@ -101,6 +102,7 @@ describe('dashboardCards', () => {
     expect(cards[0]!.figures.map((f) => [f.value, f.label, url(f.link)])).toEqual([
       ['suppliers.xlsx', 'imported', '/imports/4'], [2, 'warnings', '/imports/4'],
       [0, 'errors', '/imports/4']]);
+    expect([cards[0]!.more?.path, cards[0]!.also?.path]).toEqual(['/imports', '/imports/history']);
   });
 
   it('says what to do first in an empty workspace, per role', () => {

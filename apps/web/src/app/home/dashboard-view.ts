@@ -58,6 +58,8 @@ export interface DashboardCard {
   readonly empty?: EmptyState;
   /** A closing link ("All entries"). */
   readonly more?: DashboardLink & { readonly label: string };
+  /** A second closing link, after {@link more}. */
+  readonly also?: DashboardLink & { readonly label: string };
 }
 
 /** Highest band first: the order a reader scans a register. */
@@ -72,14 +74,21 @@ const DECIDERS: readonly Role[] = ['plant_manager', 'risk_manager', 'admin'];
 
 const plural = (count: number, one: string, many = `${one}s`) => (count === 1 ? one : many);
 
-/** The cards for a dashboard answer, in reading order. */
+/**
+ * The cards for a dashboard answer, in reading order: what to do first, then the role's main
+ * work (a plant manager's top risks and decisions; everyone else's register), then the rest.
+ */
 export function dashboardCards(dto: DashboardDto, role: Role): DashboardCard[] {
   const cards: DashboardCard[] = [];
   if (!dto.hasNetwork) cards.push(networkCard(role));
-  if (dto.openEntriesByBand) cards.push(registerCard(dto, role));
-  if (dto.topRisks) cards.push(risksCard(dto.topRisks));
-  if (dto.plansAwaitingApproval !== null && DECIDERS.includes(role)) {
-    cards.push(approvalsCard(dto.plansAwaitingApproval, role));
+  const register = dto.openEntriesByBand ? registerCard(dto, role) : null;
+  const approvals = dto.plansAwaitingApproval !== null && DECIDERS.includes(role)
+    ? approvalsCard(dto.plansAwaitingApproval, role) : null;
+  if (dto.topRisks) {
+    // Wide and narrow cards alternate, so the grid's rows fill.
+    cards.push(risksCard(dto.topRisks), ...present(approvals, register));
+  } else {
+    cards.push(...present(register, approvals));
   }
   if (dto.overdueTasks !== null) cards.push(tasksCard(dto, role));
   if (role !== 'buyer' && role !== 'plant_manager') cards.push(runCard(dto, role));
@@ -87,6 +96,9 @@ export function dashboardCards(dto: DashboardDto, role: Role): DashboardCard[] {
   if (IMPORTERS.includes(role)) cards.push(importCard(dto));
   return cards;
 }
+
+const present = (...cards: (DashboardCard | null)[]): DashboardCard[] =>
+  cards.filter((card): card is DashboardCard => card !== null);
 
 function networkCard(role: Role): DashboardCard {
   const imports = IMPORTERS.includes(role);
@@ -219,9 +231,9 @@ function rescoringCard(dto: DashboardDto): DashboardCard {
           'changed', link: compare },
         { value: summary.created, label: `new ${plural(summary.created, 'entry', 'entries')}`,
           link: compare },
-        { value: summary.supplierRemoved, label: 'suppliers no longer in the network',
+        { value: summary.supplierRemoved, label: 'suppliers removed',
           link: compare },
-        { value: summary.noLongerMatters, label: 'entries that no longer matter', link: compare },
+        { value: summary.noLongerMatters, label: 'no longer matter', link: compare },
       );
     }
   }
@@ -250,7 +262,8 @@ function importCard(dto: DashboardDto): DashboardCard {
     ] : [],
     empty: batch ? undefined : { text: 'No import yet. Import the supplier spreadsheet first.',
       action: { path: '/imports', label: 'Import the supplier spreadsheet' } },
-    more: batch ? { path: '/imports/history', label: 'Import history' } : undefined,
+    more: batch ? { path: '/imports', label: 'Import a new spreadsheet' } : undefined,
+    also: batch ? { path: '/imports/history', label: 'Import history' } : undefined,
   };
 }
 
