@@ -183,8 +183,18 @@ describe('a re-scoring of the demo network', () => {
     const done = await waitForRescoring(t, winner.body.id);
     expect(done.status).toBe('succeeded');
     expect(done.summary!.previousRescoringId).toBe(first.id);
-    // Nothing changed since the first, so this one has no rating changes.
+    // Nothing changed since the first, so this one has no rating changes: only the risk
+    // manager hears of it, with the comparison against the first.
     expect(done.summary!.ratingChanged).toBe(0);
+    const counted = await withMailsCounted(done.id);
+    const mail = sql().prepare('select to_addresses, text from mail_messages where text ' +
+      "like '%re-scoring of 2026-Q2%'").all() as { to_addresses: string; text: string }[];
+    expect(counted.summary!.mailsSent).toBe(1);
+    expect(mail.map((message) => JSON.parse(message.to_addresses))).toEqual([
+      ['risk@demo.test']]);
+    expect(mail[0]!.text).toContain('No rating or flag changed.');
+    expect(mail[0]!.text).toContain('http://keelson.test:4200/rescoring/compare?from=' +
+      `${first.analysisRunId}&to=${done.analysisRunId}`);
   }, 60_000);
 
   it('lets an admin force another re-scoring of a taken quarter', async () => {
