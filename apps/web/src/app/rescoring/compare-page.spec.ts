@@ -71,8 +71,8 @@ describe('ComparePage', () => {
     request.flush(comparisonDto());
     await settle();
     const pickers = [...root().querySelectorAll('mat-select')].map((select) => words(select));
-    expect(pickers[0]).toContain('Quarterly 2026-Q3 · quarterly (run 101');
-    expect(pickers[1]).toContain('Quarterly 2026-Q4 · quarterly (run 102');
+    expect(pickers[0]).toContain('Quarterly 2026-Q3 (run 101');
+    expect(pickers[1]).toContain('Quarterly 2026-Q4 (run 102');
     expect(words(root().querySelector('header'))).toContain('decision support');
     const exportLink = [...root().querySelectorAll('a')].find((a) =>
       words(a).endsWith('Export to xlsx'));
@@ -118,7 +118,7 @@ describe('ComparePage', () => {
     backend.expectOne((r) => r.url === '/api/comparison').flush(comparisonDto());
     await settle();
     const header = [...section('risers').querySelectorAll<HTMLElement>('th')].find((th) =>
-      words(th) === 'Change')!;
+      words(th) === 'Revenue impact change')!;
     header.querySelector<HTMLElement>('.mat-sort-header-container')!.click();
     await settle();
     expect(sectionRows('risers').map((row) => row[0])).toEqual([

@@ -155,6 +155,6 @@ function idOf(value: string | undefined): number | null {
 function runText(run: AnalysisRunDto): string {
   const date = run.finishedAt ? new Date(run.finishedAt).toLocaleDateString('en-GB',
     { day: 'numeric', month: 'short', year: 'numeric' }) : '';
-  return `${run.label}${run.kind === 'quarterly' ? ' · quarterly' : ''} (run ${run.id}` +
-    `${date ? `, ${date}` : ''})`;
+  const kind = run.kind === 'quarterly' && !/quarter/i.test(run.label) ? ' · quarterly' : '';
+  return `${run.label}${kind} (run ${run.id}${date ? `, ${date}` : ''})`;
 }

@@ -98,7 +98,7 @@ export function signed(value: number, digits = 0): string {
         </ng-container>
         <ng-container matColumnDef="impactChange">
           <th mat-header-cell *matHeaderCellDef mat-sort-header arrowPosition="before">
-            Change</th>
+            Revenue impact change</th>
           <td mat-cell *matCellDef="let row" class="section__number">
             {{ signedText(row.revenueImpactChange) }}</td>
         </ng-container>
@@ -138,13 +138,26 @@ export function signed(value: number, digits = 0): string {
       border: 1px solid var(--mat-sys-outline-variant);
       border-radius: var(--mat-sys-corner-medium);
     }
+    /* The same column widths in every section, so the tables line up down the page. */
     .section__table {
       width: 100%;
-      min-width: 900px;
+      min-width: 1000px;
+      table-layout: fixed;
+    }
+    .mat-column-supplier {
+      width: 26%;
+    }
+    .mat-column-tier {
+      width: 6%;
+    }
+    .mat-column-before,
+    .mat-column-after {
+      width: 12%;
     }
     .section__code {
       margin-left: 6px;
       font: var(--mat-sys-body-small);
+      white-space: nowrap;
     }
     .section__number {
       text-align: right;

@@ -30,14 +30,14 @@ interface LiveProgress {
   stage: string | null;
 }
 
-/** The counts of a summary in words: "148 re-scored · 1 new · 3 rating changed". */
-export function summaryWords(summary: RescoringSummaryDto | null): string {
-  if (!summary) return '—';
+/** The counts of a summary as short phrases: "148 re-scored", "1 new", "3 rating changed". */
+export function summaryParts(summary: RescoringSummaryDto | null): string[] {
+  if (!summary) return [];
   const parts = [`${summary.rescored} re-scored`, `${summary.created} new`,
     `${summary.ratingChanged} rating changed`];
   if (summary.supplierRemoved > 0) parts.push(`${summary.supplierRemoved} supplier gone`);
   if (summary.noLongerMatters > 0) parts.push(`${summary.noLongerMatters} no longer matter`);
-  return parts.join(' · ');
+  return parts;
 }
 
 /** The rows the page shows: the list, newest first. */
@@ -89,7 +89,7 @@ export class RescoringPage {
   protected readonly isAdmin = computed(() => this.session.hasRole('admin'));
   protected readonly statusLabel = rescoringStatusLabel;
   protected readonly isActive = isRescoringActive;
-  protected readonly summaryWords = summaryWords;
+  protected readonly summaryParts = summaryParts;
 
   constructor() {
     inject(DestroyRef).onDestroy(() => {

@@ -54,7 +54,7 @@ export function formatInZone(iso: string, timeZone: string): string {
     @if (isEditing()) {
       <form class="schedule__form" [formGroup]="form" (ngSubmit)="save()"
             aria-label="Re-scoring schedule">
-        <mat-form-field appearance="outline">
+        <mat-form-field appearance="outline" subscriptSizing="dynamic">
           <mat-label>Cron expression</mat-label>
           <input matInput formControlName="cron" maxlength="100" />
           <mat-hint>minute hour day-of-month month day-of-week; {{ preview() }}</mat-hint>
@@ -64,7 +64,7 @@ export function formatInZone(iso: string, timeZone: string): string {
             <mat-error>Five fields, as 0 6 * 1,4,7,10 1#1.</mat-error>
           }
         </mat-form-field>
-        <mat-form-field appearance="outline">
+        <mat-form-field appearance="outline" subscriptSizing="dynamic">
           <mat-label>Time zone</mat-label>
           <input matInput formControlName="timeZone" maxlength="64" />
           <mat-hint>An IANA name, as Europe/Berlin or UTC.</mat-hint>

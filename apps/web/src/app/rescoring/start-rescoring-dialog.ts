@@ -73,7 +73,9 @@ export function takenRescoringId(failure: unknown): number | null {
         <mat-form-field appearance="outline">
           <mat-label>Network version</mat-label>
           <mat-select formControlName="networkVersionId">
-            <mat-option [value]="null">The latest version</mat-option>
+            <mat-option value="latest">
+              The latest version, whichever it is when it starts
+            </mat-option>
             @for (version of versions(); track version.id) {
               <mat-option [value]="version.id">{{ label(version) }}</mat-option>
             }
@@ -97,7 +99,7 @@ export function takenRescoringId(failure: unknown): number | null {
           </p>
         }
         @if (error(); as message) {
-          <div class="kl-error-banner" role="alert">
+          <div class="kl-error-banner start-rescoring__error" role="alert">
             <span>{{ message }}</span>
             @if (takenId(); as id) {
               <button matButton type="button" [mat-dialog-close]="{ showExisting: id }">
@@ -118,6 +120,11 @@ export function takenRescoringId(failure: unknown): number | null {
       display: block;
       width: min(520px, 100%);
     }
+    .start-rescoring__error {
+      flex-direction: column;
+      align-items: flex-start;
+      max-width: 520px;
+    }
     .start-rescoring__explain {
       max-width: 520px;
       margin: 0 0 12px 40px;
@@ -137,7 +144,7 @@ export class StartRescoringDialog {
   protected readonly error = signal<string | null>(null);
   protected readonly takenId = signal<number | null>(null);
   protected readonly form = new FormGroup({
-    networkVersionId: new FormControl<number | null>(null),
+    networkVersionId: new FormControl<number | 'latest'>('latest', { nonNullable: true }),
     quarterLabel: new FormControl(quarterOf(new Date(), this.data.timeZone), {
       nonNullable: true,
       validators: [Validators.required, Validators.pattern(/^\s*\d{4}-Q[1-4]\s*$/)],
@@ -175,7 +182,7 @@ export class StartRescoringDialog {
     this.error.set(null);
     this.takenId.set(null);
     this.api.start({
-      ...(networkVersionId === null ? {} : { networkVersionId }),
+      ...(networkVersionId === 'latest' ? {} : { networkVersionId }),
       quarterLabel: quarterLabel.trim(),
       force: this.data.isAdmin && force,
     }).subscribe({
