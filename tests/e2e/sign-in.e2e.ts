@@ -63,6 +63,9 @@ describe('signing in as each demo account', () => {
       for (const label of account.hidden) {
         expect(await navigation.getByRole('link', { name: label, exact: true }).count()).toBe(0);
       }
+      // The home page is the role's dashboard, with its note on what the figures are.
+      await expect.poll(() => page.locator('[data-card]').count()).toBeGreaterThan(0);
+      expect(await page.getByText("Keelson's scores are decision support").count()).toBe(1);
       await screenshot(page, `home-${account.role}`);
       await page.close();
     });
