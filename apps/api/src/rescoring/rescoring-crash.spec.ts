@@ -134,7 +134,12 @@ describe('a server killed during a re-scoring', () => {
       expect(started).toMatchObject({ networkVersionId: versionId, status: 'queued' });
       const runId = started.analysisRunId!;
       await until(() => call<AnalysisRunDto>(url, risk, `/api/analysis-runs/${runId}`),
-        (run) => run.status === 'running' && run.progress > 0);
+        (run) => {
+          if (!['queued', 'running'].includes(run.status)) {
+            throw new Error(`The analysis ended (${run.status}) before it could be killed.`);
+          }
+          return run.status === 'running' && run.progress > 0;
+        });
       await killServer();
 
       readDatabase((db) => {
