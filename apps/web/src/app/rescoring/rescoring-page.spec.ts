@@ -117,6 +117,19 @@ describe('RescoringPage', () => {
     expect(button('Start re-scoring')).toBeUndefined();
   });
 
+  it('compares a forced second re-scoring with the earlier one of its quarter', async () => {
+    await open('viewer', [
+      rescoringRow(3, { isForced: true, summary: { ...rescoringRow(3).summary!,
+        previousRescoringId: 2 } }),
+      rescoringRow(2),
+    ]);
+    const compare = [...root.querySelectorAll('a')].filter((a) =>
+      words(a).startsWith('Compare with'));
+    expect(compare.map((a) => [words(a), a.getAttribute('href')])).toEqual([
+      ['Compare with the earlier re-scoring', '/rescoring/compare?from=102&to=103'],
+    ]);
+  });
+
   it('says what to do first when there is no re-scoring and no trend yet', async () => {
     await open('risk_manager', [], []);
     expect(words(root.querySelector('.rescoring__empty'))).toContain(

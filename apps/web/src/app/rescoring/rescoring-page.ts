@@ -110,15 +110,23 @@ export class RescoringPage {
     return this.live().get(run.id) ?? run;
   }
 
-  /** The comparison link of a finished re-scoring against the one before it, if any. */
-  protected compareLink(run: RescoringRunDto): { from: number; to: number } | null {
+  /**
+   * The comparison link of a finished re-scoring against the one before it, if any; a forced
+   * second one of a quarter compares with the earlier one of the same quarter.
+   */
+  protected compareLink(run: RescoringRunDto):
+    { query: { from: number; to: number }; text: string } | null {
     if (run.status !== 'succeeded' || run.analysisRunId === null) return null;
     const rows = this.rescorings();
     const named = run.summary?.previousRescoringId;
     const previous = named ? rows.find((row) => row.id === named)
       : rows.slice(rows.indexOf(run) + 1).find((row) => row.status === 'succeeded');
-    return previous?.analysisRunId ? { from: previous.analysisRunId, to: run.analysisRunId }
-      : null;
+    if (!previous?.analysisRunId) return null;
+    return {
+      query: { from: previous.analysisRunId, to: run.analysisRunId },
+      text: previous.quarterLabel === run.quarterLabel ? 'Compare with the earlier re-scoring'
+        : 'Compare with the previous quarter',
+    };
   }
 
   protected openStart(): void {
