@@ -93,6 +93,16 @@ describe('/api/settings/scoring', () => {
     expect(runBands).toEqual([{ band: 'medium' }, { band: 'high' }, { band: 'critical' }]);
     expect((await request(t.app).get('/api/settings/scoring').set(bearer('buyer'))).body)
       .toEqual(changed);
+    // The change is in the audit trail: by the administrator, the settings before and after.
+    const audit = t.database.sqlite.prepare(`select user_id as userId, before, after
+      from audit_events where action = 'settings.scoring_changed'`).all() as
+      { userId: number; before: string; after: string }[];
+    expect(audit).toHaveLength(1);
+    expect(audit[0]!.userId).toBe(t.userId(ACCOUNT_OF_ROLE.admin));
+    expect(JSON.parse(audit[0]!.before).ratingBandFloors)
+      .toEqual(SCORING_DEFAULTS.ratingBandFloors);
+    expect(JSON.parse(audit[0]!.after)).toMatchObject({
+      ratingBandFloors: { medium: 5, high: 13, critical: 21 }, registerEntriesRescored: 2 });
   });
 
   it('uses the saved floors for a later override', async () => {

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { scoringSettingsSchema, type ScoringSettings } from '@keelson/scoring';
+import { sessionUser } from '../http/auth-context';
 import { parseInput } from '../http/parse-input';
 import { route, SIGNED_IN } from '../http/route';
 import type { ScoringSettingsService } from './scoring-settings.service';
@@ -28,7 +29,7 @@ export function createScoringSettingsRouter(service: ScoringSettingsService): Ro
     roles: ['admin'],
     handler: (req, res) => {
       const body = parseInput(scoringSettingsSchema, req.body, 'body') as ScoringSettings;
-      const { settings, rescored } = service.replace(body);
+      const { settings, rescored } = service.replace(body, sessionUser(req).id);
       res.setHeader(RESCORED_HEADER, String(rescored));
       res.json(settings);
     },

@@ -5,6 +5,7 @@
  */
 import type { KeelsonDatabase } from '@keelson/db';
 import type { ScoringSettings } from '@keelson/scoring';
+import { recordAudit } from '../audit/audit-trail';
 import { loadScoringSettings, saveScoringSettings } from './scoring-settings.repository';
 
 /** What the settings service is built from. */
@@ -24,11 +25,21 @@ export class ScoringSettingsService {
     return loadScoringSettings(this.deps.db);
   }
 
-  /** Saves validated settings and re-scores; returns the saved settings and the rows changed. */
-  replace(settings: ScoringSettings): { settings: ScoringSettings; rescored: number } {
+  /**
+   * Saves validated settings and re-scores, recording the change (by `userId`) in the audit
+   * trail; returns the saved settings and the rows changed.
+   */
+  replace(settings: ScoringSettings, userId: number | null = null):
+    { settings: ScoringSettings; rescored: number } {
     const rescored = this.deps.db.transaction(() => {
-      saveScoringSettings(this.deps.db, settings, this.deps.now());
-      return this.deps.afterChange(settings);
+      const before = loadScoringSettings(this.deps.db);
+      const now = this.deps.now();
+      saveScoringSettings(this.deps.db, settings, now);
+      const changed = this.deps.afterChange(settings);
+      recordAudit(this.deps.db, { action: 'settings.scoring_changed', subjectType: 'app_settings',
+        subjectId: 'scoring', userId, before: { ...before }, after: { ...settings,
+          registerEntriesRescored: changed } }, now);
+      return changed;
     });
     return { settings: this.current(), rescored };
   }

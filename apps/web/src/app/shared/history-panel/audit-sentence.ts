@@ -20,6 +20,16 @@ export interface ChangedField {
 // Keys that say where an event belongs (its plan or entry), not what changed.
 const CONTEXT_KEYS = new Set(['entryId', 'planId']);
 
+const FLAG_WORDS: Record<string, string> = {
+  supplier_removed: 'its supplier is no longer in the network',
+  no_longer_matters: 'no longer a single point of failure and rated low',
+};
+
+/** A re-scoring's quarter label from its record, else its number. */
+function quarterOf(after: Record<string, unknown>, id: string): string {
+  return typeof after['quarterLabel'] === 'string' ? `${after['quarterLabel']} (#${id})` : `#${id}`;
+}
+
 /** Who did it: the user's name, or "Keelson" for the system (a scheduled job). */
 export function actorName(event: AuditEventDto): string {
   return event.user?.name ?? 'Keelson';
@@ -93,6 +103,27 @@ export function describeAuditEvent(event: AuditEventDto): string {
       return `${who} reactivated user #${id}`;
     case 'user.mail_preferences_changed':
       return `${who} changed the e-mail settings of user #${id}`;
+    case 'register.flag_changed':
+      return after['flag'] === null || after['flag'] === undefined
+        ? `${who}'s re-scoring cleared the flag of entry #${id}`
+        : `${who}'s re-scoring flagged entry #${id}: ${FLAG_WORDS[String(after['flag'])]
+          ?? String(after['flag'])}`;
+    case 'rescoring.started':
+      return `${who} started re-scoring ${quarterOf(after, id)}`;
+    case 'rescoring.succeeded':
+      return `Re-scoring ${quarterOf(after, id)} finished (started by ${who})`;
+    case 'rescoring.cancelled':
+      return `${who} cancelled re-scoring ${quarterOf(after, id)}`;
+    case 'rescoring.interrupted':
+      return `Re-scoring ${quarterOf(after, id)} was interrupted by a server restart`;
+    case 'rescoring.resumed':
+    case 'rescoring.restarted':
+      return `${who} ${event.action === 'rescoring.resumed' ? 'resumed' : 'restarted'} `
+        + `re-scoring ${quarterOf(after, id)}`;
+    case 'rescoring.schedule_changed':
+      return `${who} changed the re-scoring schedule`;
+    case 'settings.scoring_changed':
+      return `${who} changed the scoring settings`;
     default:
       return `${who}: ${event.action.replace(/[._]/g, ' ')} (${event.subjectType} ${id})`;
   }

@@ -121,6 +121,16 @@ describe('audit sentences', () => {
       .toBe('Rania Okafor: thing did stuff (register_entry 7)');
   });
 
+  it('words the re-scoring and its flags', () => {
+    expect(describeAuditEvent({ ...EDITED, user: null, action: 'register.flag_changed',
+      before: { flag: null }, after: { flag: 'supplier_removed', rescoringId: 2 } }))
+      .toBe("Keelson's re-scoring flagged entry #7: its supplier is no longer in the network");
+    expect(describeAuditEvent({ ...EDITED, action: 'rescoring.started',
+      subjectType: 'rescoring_run', subjectId: '2', before: null,
+      after: { quarterLabel: '2027-Q1' } }))
+      .toBe('Rania Okafor started re-scoring 2027-Q1 (#2)');
+  });
+
   it('words a comment, and a field that changed its value', () => {
     expect(describeAuditEvent({ ...EDITED, action: 'task.commented', subjectType: 'plan_task',
       subjectId: '8', before: null, after: { text: 'Booked the audit', planId: 3 } }))
