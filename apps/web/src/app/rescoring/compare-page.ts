@@ -48,7 +48,8 @@ export const COMPARISON_SECTIONS: readonly SectionSpec[] = [
     description: 'In the later run only: new in the network version it analysed.',
     emptyText: 'No supplier was added.' },
   { key: 'suppliersRemoved', title: 'Suppliers removed',
-    description: 'In the earlier run only; their register entries are flagged as removed.',
+    description: 'In the earlier run only; a register entry of theirs is flagged: supplier no ' +
+      'longer in the network.',
     emptyText: 'No supplier was removed.' },
 ];
 
