@@ -17,6 +17,14 @@ export type ScoreHistory = RunSupplierDetailDto['history'];
 
 type HistoryConfig = ChartConfiguration<'line', number[], string>;
 
+// One colour per line (Chart.js would draw them all grey), as in the Pareto and trend charts.
+const RATING_COLOUR = '#ba1a1a';
+const LIKELIHOOD_COLOUR = '#d68910';
+const IMPACT_BAND_COLOUR = '#266e7d';
+const REVENUE_COLOUR = '#5b4a8a';
+
+const coloured = (colour: string) => ({ borderColor: colour, backgroundColor: colour });
+
 /** The line chart of a score history: rating, likelihood and impact band left, impact right. */
 export function scoreHistoryConfig(history: ScoreHistory): HistoryConfig {
   return {
@@ -24,11 +32,15 @@ export function scoreHistoryConfig(history: ScoreHistory): HistoryConfig {
     data: {
       labels: history.map((point) => point.label),
       datasets: [
-        { label: 'Rating (1-25)', data: history.map((p) => p.rating), yAxisID: 'score' },
-        { label: 'Likelihood (1-5)', data: history.map((p) => p.likelihood), yAxisID: 'score' },
-        { label: 'Impact band (1-5)', data: history.map((p) => p.impactBand), yAxisID: 'score' },
+        { label: 'Rating (1-25)', data: history.map((p) => p.rating), yAxisID: 'score',
+          ...coloured(RATING_COLOUR) },
+        { label: 'Likelihood (1-5)', data: history.map((p) => p.likelihood), yAxisID: 'score',
+          ...coloured(LIKELIHOOD_COLOUR) },
+        { label: 'Impact band (1-5)', data: history.map((p) => p.impactBand), yAxisID: 'score',
+          ...coloured(IMPACT_BAND_COLOUR) },
         {
           label: 'Revenue impact',
+          ...coloured(REVENUE_COLOUR),
           data: history.map((p) => p.revenueImpact),
           yAxisID: 'impact',
           borderDash: [6, 4],
