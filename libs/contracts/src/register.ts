@@ -77,6 +77,8 @@ export const listRegisterQuerySchema = z.object({
   ratingBand: z.enum(['low', 'medium', 'high', 'critical']).optional(),
   plant: z.string().trim().max(40).optional(),
   ownerId: z.coerce.number().int().positive().optional(),
+  /** Entries a re-scoring flagged: one flag, or `flagged` for either. */
+  flag: z.enum([...REGISTER_FLAGS, 'flagged']).optional(),
 });
 /** GET /api/register query. */
 export type ListRegisterQuery = z.infer<typeof listRegisterQuerySchema>;

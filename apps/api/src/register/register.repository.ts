@@ -3,7 +3,7 @@
  * version), owner, plants and override history; the run rows and network rows a manual entry
  * takes its scores from.
  */
-import { and, asc, count, desc, eq, inArray, sql, type SQL, type SQLWrapper } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, isNotNull, sql, type SQL, type SQLWrapper } from 'drizzle-orm';
 import type { ExportRegisterQuery, RegisterSortField } from '@keelson/contracts';
 import {
   analysisRuns,
@@ -236,6 +236,8 @@ export class RegisterRepository {
     if (filter.status) conditions.push(eq(e.status, filter.status));
     if (filter.ratingBand) conditions.push(eq(e.ratingBand, filter.ratingBand));
     if (filter.ownerId) conditions.push(eq(e.ownerId, filter.ownerId));
+    if (filter.flag === 'flagged') conditions.push(isNotNull(e.flag));
+    else if (filter.flag) conditions.push(eq(e.flag, filter.flag));
     return conditions.length > 0 ? and(...conditions) : undefined;
   }
 }

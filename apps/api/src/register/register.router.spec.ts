@@ -67,6 +67,26 @@ describe('GET /api/register', () => {
     expect([codes(page), page.total]).toEqual([['S-2-SHARED-A'], 3]);
   });
 
+  it('filters the entries a re-scoring flagged, by flag or all of them', async () => {
+    const setFlag = t.database.sqlite.prepare('update register_entries set flag = ? where id = ?');
+    setFlag.run('supplier_removed', idOf['S-1-001']);
+    setFlag.run('no_longer_matters', idOf['S-2-SHARED-B']);
+    try {
+      expect(codes(await list('viewer', { flag: 'supplier_removed' }))).toEqual(['S-1-001']);
+      expect(codes(await list('viewer', { flag: 'flagged' })))
+        .toEqual(['S-2-SHARED-B', 'S-1-001']);
+      expect((await list('viewer', { flag: 'flagged' })).items[1]!.flag)
+        .toBe('supplier_removed');
+      const bad = await request(t.app).get('/api/register').query({ flag: 'stale' })
+        .set(as('viewer'));
+      expect(bad.status).toBe(400);
+      expect(issuePaths(bad.body)).toEqual(['query.flag']);
+    } finally {
+      setFlag.run(null, idOf['S-1-001']);
+      setFlag.run(null, idOf['S-2-SHARED-B']);
+    }
+  });
+
   it('shows a plant manager only entries with one of their plants', async () => {
     expect(codes(await list('plant_manager'))).toEqual(['S-2-SHARED-A']);
     const other = await request(t.app).get('/api/register').query({ plant: 'P-SOUTH' })

@@ -140,6 +140,19 @@ describe('RegisterEntryPage', () => {
     },
   );
 
+  it('says what a re-scoring flag means', async () => {
+    await open('viewer', { ...ENTRY, flag: 'supplier_removed' });
+    const note = root.querySelector('.entry__flag[role="note"] p')!;
+    expect(words(note)).toBe('Supplier removed. The last quarterly re-scoring did not find this '
+      + 'supplier in the network any more. Check whether it was replaced, then close the entry '
+      + 'or keep it with a note.');
+  });
+
+  it('shows no flag note on an entry no re-scoring flagged', async () => {
+    await open('viewer');
+    expect(root.querySelector('.entry__flag')).toBeNull();
+  });
+
   it('lists the entry\'s mitigation plans; risk managers may draft one', async () => {
     await open('risk_manager', ENTRY, [
       planSummary(7, { status: 'submitted', pendingPlants: ['P-SOUTH'] }),

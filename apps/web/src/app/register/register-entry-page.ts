@@ -40,7 +40,13 @@ import { OverrideDialog } from './override-dialog';
 import { ownerOptions } from './owner-options';
 import { RatingChip } from './rating-chip';
 import { RegisterApi } from './register-api';
-import { REGISTER_WRITERS, STATUSES, STATUS_LABELS } from './register-labels';
+import {
+  FLAG_EXPLANATIONS,
+  FLAG_LABELS,
+  REGISTER_WRITERS,
+  STATUSES,
+  STATUS_LABELS,
+} from './register-labels';
 import { ScoreNote } from './score-note';
 import { StatusChip } from './status-chip';
 
@@ -101,6 +107,8 @@ export class RegisterEntryPage {
   protected readonly owners = ownerOptions();
   protected readonly statuses = STATUSES;
   protected readonly statusLabels = STATUS_LABELS;
+  protected readonly flagLabels = FLAG_LABELS;
+  protected readonly flagExplanations = FLAG_EXPLANATIONS;
   protected readonly historyColumns = ['createdAt', 'user', 'previous', 'likelihood', 'reason'];
   protected readonly latestVersion = toSignal(
     inject(NetworkVersionsApi)

@@ -43,6 +43,21 @@ export function isRegisterStatus(value: string | undefined): value is RegisterSt
   return (REGISTER_STATUSES as readonly string[]).includes(value ?? '');
 }
 
+/** The register's flag filter: one flag, or `flagged` for either. */
+export type FlagFilter = RegisterFlag | 'flagged';
+
+/** The flag filter's choices in words, in the order the filter offers them. */
+export const FLAG_FILTER_LABELS: Readonly<Record<FlagFilter, string>> = {
+  flagged: 'Any flag',
+  supplier_removed: 'Supplier removed',
+  no_longer_matters: 'No longer matters',
+};
+
+/** True when `value` is one of the flag filter's choices. */
+export function isFlagFilter(value: string | undefined): value is FlagFilter {
+  return Object.keys(FLAG_FILTER_LABELS).includes(value ?? '');
+}
+
 /** True when `value` is one of the rating bands. */
 export function isRatingBand(value: string | undefined): value is RatingBand {
   return (RATING_BANDS as readonly string[]).includes(value ?? '');

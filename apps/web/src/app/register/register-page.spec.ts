@@ -170,10 +170,17 @@ describe('RegisterPage', () => {
     });
   });
 
-  it('ignores a status or band the server does not know', async () => {
-    const list = await open('/register?status=lost&ratingBand=extreme');
+  it('ignores a status, band or flag the server does not know', async () => {
+    const list = await open('/register?status=lost&ratingBand=extreme&flag=stale');
     expect(params(list)['status']).toBeUndefined();
     expect(params(list)['ratingBand']).toBeUndefined();
+    expect(params(list)['flag']).toBeUndefined();
+    list.flush({ items: [], total: 0 });
+  });
+
+  it('sends the re-scoring flag filter of the URL to the server', async () => {
+    const list = await open('/register?flag=flagged');
+    expect(params(list)['flag']).toBe('flagged');
     list.flush({ items: [], total: 0 });
   });
 

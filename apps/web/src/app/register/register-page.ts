@@ -28,6 +28,7 @@ import {
   BANDS,
   BAND_LABELS,
   FLAG_EXPLANATIONS,
+  FLAG_FILTER_LABELS,
   FLAG_LABELS,
   REGISTER_WRITERS,
   STATUSES,
@@ -98,6 +99,7 @@ export class RegisterPage {
   protected readonly statusLabels = STATUS_LABELS;
   protected readonly bands = BANDS;
   protected readonly bandLabels = BAND_LABELS;
+  protected readonly flagChoices = Object.entries(FLAG_FILTER_LABELS);
   protected readonly plants = plantOptions();
   protected readonly canWrite = computed(() => this.session.hasRole(...REGISTER_WRITERS));
   protected readonly hasFilter = computed(

@@ -5,14 +5,14 @@ import { REGISTER_SORT_FIELDS } from '@keelson/contracts';
 import { Subject, debounceTime, distinctUntilChanged, map } from 'rxjs';
 import type { TableState, UrlTable } from '../network/url-table-state';
 import type { RegisterQuery } from './register-api';
-import { isRatingBand, isRegisterStatus } from './register-labels';
+import { isFlagFilter, isRatingBand, isRegisterStatus } from './register-labels';
 
 /** Rows per page offered by the register table; the first is the default. */
 export const REGISTER_PAGE_SIZES = [25, 50, 100] as const;
 /** How long typing pauses before the register's search asks the server. */
 export const REGISTER_SEARCH_DEBOUNCE_MS = 250;
 /** The query parameters of the register's filters. */
-export const REGISTER_FILTERS = ['q', 'status', 'ratingBand', 'plant'] as const;
+export const REGISTER_FILTERS = ['q', 'status', 'ratingBand', 'plant', 'flag'] as const;
 /** One of {@link REGISTER_FILTERS}. */
 export type RegisterFilter = (typeof REGISTER_FILTERS)[number];
 
@@ -31,6 +31,7 @@ export function readRegisterState(params: ParamMap): TableState<RegisterFilter> 
   }
   if (!isRegisterStatus(filters.status)) delete filters.status;
   if (!isRatingBand(filters.ratingBand)) delete filters.ratingBand;
+  if (!isFlagFilter(filters.flag)) delete filters.flag;
   const sort = params.get('sort') ?? '';
   const order = params.get('order');
   const limit = Number(params.get('limit'));
@@ -64,12 +65,13 @@ export function registerStateParams(state: TableState<RegisterFilter>): Params {
 
 /** The filters and sort of a state as an API query (no paging). */
 export function registerFilterQuery(state: TableState<RegisterFilter>): RegisterQuery {
-  const { q, status, ratingBand, plant } = state.filters;
+  const { q, status, ratingBand, plant, flag } = state.filters;
   return {
     q,
     status: isRegisterStatus(status) ? status : undefined,
     ratingBand: isRatingBand(ratingBand) ? ratingBand : undefined,
     plant,
+    flag: isFlagFilter(flag) ? flag : undefined,
     sort: state.sort as RegisterQuery['sort'],
     order: state.order,
   };
