@@ -3,7 +3,9 @@
  * version), owner, plants and override history; the run rows and network rows a manual entry
  * takes its scores from.
  */
-import { and, asc, count, desc, eq, inArray, isNotNull, sql, type SQL, type SQLWrapper } from 'drizzle-orm';
+import {
+  and, asc, count, desc, eq, inArray, isNotNull, sql, type SQL, type SQLWrapper,
+} from 'drizzle-orm';
 import type { ExportRegisterQuery, RegisterSortField } from '@keelson/contracts';
 import {
   analysisRuns,
