@@ -12,7 +12,7 @@ import { DomSanitizer, type SafeHtml } from '@angular/platform-browser';
 import type { DigestSentDto, MailMessageDto, MailSummaryDto, Page } from '@keelson/contracts';
 import { EMPTY, Subject, catchError, map, merge, of, switchMap } from 'rxjs';
 import { apiErrorMessage } from '../shared/api-error-message';
-import { ConfirmDialog, type ConfirmDialogData } from './confirm-dialog';
+import { ConfirmDialog, type ConfirmDialogData } from '../shared/confirm-dialog';
 import { MailApi } from './mail-api';
 
 /** Messages per page of the list. */

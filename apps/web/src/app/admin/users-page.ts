@@ -34,7 +34,7 @@ import {
 } from 'rxjs';
 import { Session } from '../auth/session';
 import { apiErrorMessage } from '../shared/api-error-message';
-import { ConfirmDialog, type ConfirmDialogData } from './confirm-dialog';
+import { ConfirmDialog, type ConfirmDialogData } from '../shared/confirm-dialog';
 import { PlantsApi } from './plants-api';
 import { UserDialog, type UserDialogData } from './user-dialog';
 import { USER_STATUS_LABELS, type UserStatus, userStatus } from './user-status';

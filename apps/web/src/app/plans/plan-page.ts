@@ -25,7 +25,7 @@ import {
 } from '@keelson/contracts';
 import type { Observable } from 'rxjs';
 import { Session } from '../auth/session';
-import { type ConfirmDialogData, ConfirmDialog } from '../admin/confirm-dialog';
+import { type ConfirmDialogData, ConfirmDialog } from '../shared/confirm-dialog';
 import { RatingChip } from '../register/rating-chip';
 import { apiErrorMessage } from '../shared/api-error-message';
 import { HistoryPanel } from '../shared/history-panel/history-panel';

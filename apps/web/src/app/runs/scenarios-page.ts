@@ -23,7 +23,7 @@ import type {
   ScenarioResultDto,
 } from '@keelson/contracts';
 import { Subject, debounceTime, distinctUntilChanged, filter, of, switchMap } from 'rxjs';
-import { ConfirmDialog, type ConfirmDialogData } from '../admin/confirm-dialog';
+import { ConfirmDialog, type ConfirmDialogData } from '../shared/confirm-dialog';
 import { Session } from '../auth/session';
 import { countryOptions } from '../network/filter-options';
 import { NetworkVersionsApi } from '../network/network-versions-api';
