@@ -23,9 +23,24 @@ async function rescore(page: Page, url: string, quarter: string): Promise<void> 
   await page.goto(`${url}/rescoring`);
   await page.getByRole('button', { name: 'Start re-scoring' }).click();
   const dialog = page.getByRole('dialog');
-  await dialog.getByLabel('Quarter').fill(quarter);
+  const quarterField = dialog.getByLabel('Quarter');
+  // Type only once the form has written its default (this quarter) into the field: a value
+  // typed into the field before that is overwritten.
+  await expect.poll(() => quarterField.inputValue()).toMatch(/^\d{4}-Q[1-4]$/);
+  await quarterField.fill(quarter);
+  await expect.poll(() => quarterField.inputValue()).toBe(quarter);
   await dialog.getByRole('button', { name: 'Start' }).click();
-  await dialog.waitFor({ state: 'detached' });
+  // The dialog closes once the re-scoring is queued; a refusal stays in it as an alert.
+  const refusal = dialog.getByRole('alert');
+  // Each wait settles to a word (never rejects), so the one that loses the race is harmless.
+  const outcome = await Promise.race([
+    dialog.waitFor({ state: 'detached', timeout: 30_000 }).then(() => 'closed', () => 'slow'),
+    refusal.waitFor({ timeout: 30_000 }).then(() => 'refused', () => 'slow'),
+  ]);
+  if (outcome !== 'closed') {
+    const said = outcome === 'refused' ? await refusal.textContent() : await dialog.textContent();
+    throw new Error(`Start re-scoring of ${quarter} did not start (${outcome}): ${said}`);
+  }
   const row = page.getByRole('table', { name: 'Re-scorings' }).getByRole('row')
     .filter({ hasText: quarter });
   await expect.poll(() => row.textContent(), { timeout: 90_000 }).toContain('Finished');
