@@ -2,7 +2,7 @@
  * The home dashboard's queries: counts and latest rows read straight from the register, plans,
  * tasks, runs, re-scorings and imports. Read-only; every figure is one small query.
  */
-import { and, count, desc, eq, exists, inArray, isNotNull, lt, ne, notExists, or, sql }
+import { and, count, desc, eq, exists, inArray, isNotNull, ne, notExists, or, sql }
   from 'drizzle-orm';
 import type { RatingBand, RescoringStatus, RescoringSummaryDto } from '@keelson/contracts';
 import {
@@ -17,14 +17,12 @@ import {
   rescoringRuns,
   type KeelsonDatabase,
 } from '@keelson/db';
+import { overdueTaskCondition } from '../plans/overdue-tasks';
 
 /** The register statuses the dashboard counts as live risks. */
 export const LIVE_STATUSES = ['open', 'mitigating'] as const;
 /** One of {@link LIVE_STATUSES}. */
 export type LiveStatus = (typeof LIVE_STATUSES)[number];
-/** Plan statuses whose tasks can be overdue (the work is under way). */
-export const ACTIVE_PLAN_STATUSES = ['approved', 'in_progress'] as const;
-const OPEN_TASK_STATUSES = ['todo', 'doing'] as const;
 
 /** Entries per status and band, as counted. */
 export interface BandCountRow {
@@ -151,8 +149,7 @@ export class DashboardRepository {
     const t = planTasks;
     return this.db.select({ n: count() }).from(t)
       .innerJoin(mitigationPlans, eq(mitigationPlans.id, t.planId))
-      .where(and(inArray(t.status, [...OPEN_TASK_STATUSES]), isNotNull(t.dueDate),
-        lt(t.dueDate, filter.today), inArray(mitigationPlans.status, [...ACTIVE_PLAN_STATUSES]),
+      .where(and(overdueTaskCondition(filter.today),
         filter.ownerId === undefined ? undefined : eq(t.ownerId, filter.ownerId)))
       .get()?.n ?? 0;
   }

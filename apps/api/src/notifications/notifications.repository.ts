@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, lt, sql } from 'drizzle-orm';
+import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/sqlite-core';
 import {
   mailPreferences,
@@ -12,6 +12,7 @@ import {
 } from '@keelson/db';
 import { MAIL_KINDS, type MailKind, type PlanStatus, type PlanStrategy, type Role,
   type TaskStatus } from '@keelson/contracts';
+import { overdueTaskCondition } from '../plans/overdue-tasks';
 
 /** Someone Keelson may e-mail, with what they switched off. */
 export interface MailRecipient {
@@ -193,11 +194,7 @@ export class NotificationsRepository {
       .innerJoin(mitigationPlans, eq(mitigationPlans.id, planTasks.planId))
       .innerJoin(registerEntries, eq(registerEntries.id, mitigationPlans.entryId))
       .leftJoin(owner, eq(owner.id, planTasks.ownerId))
-      .where(and(
-        inArray(planTasks.status, ['todo', 'doing']),
-        lt(planTasks.dueDate, today),
-        inArray(mitigationPlans.status, ['approved', 'in_progress']),
-      ))
+      .where(overdueTaskCondition(today))
       .orderBy(asc(planTasks.dueDate), asc(planTasks.id))
       .all()
       .map(({ ownerId, ownerName, ownerIsActive, ...task }) => ({

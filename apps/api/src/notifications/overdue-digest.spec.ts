@@ -13,7 +13,8 @@ import {
 } from './notification-fixtures';
 import { daysOverdue } from './notification-emails';
 import { NotificationsRepository } from './notifications.repository';
-import { sendOverdueDigest, utcDay, type OverdueDigestDeps } from './overdue-digest';
+import { todayOf } from '../plans/plan-rules';
+import { sendOverdueDigest, type OverdueDigestDeps } from './overdue-digest';
 
 // A fixed Monday morning. "Overdue" = to do or doing, due before 2026-03-09 (UTC), and the plan
 // approved or in progress. The expected lists below follow from the rows, written by hand.
@@ -136,7 +137,7 @@ describe('sendOverdueDigest', () => {
 
 describe('dates', () => {
   it('takes today in UTC and counts whole days', () => {
-    expect(utcDay(new Date('2026-03-08T23:30:00.000-02:00'))).toBe('2026-03-09');
+    expect(todayOf(new Date('2026-03-08T23:30:00.000-02:00'))).toBe('2026-03-09');
     expect(daysOverdue('2026-02-27', '2026-03-02')).toBe(3);
   });
 });

@@ -10,6 +10,7 @@
 import type { Logger } from 'pino';
 import type { DigestSentDto } from '@keelson/contracts';
 import type { Mailer } from '../mail/mailer';
+import { todayOf } from '../plans/plan-rules';
 import { digestEmail } from './notification-emails';
 import type {
   MailRecipient,
@@ -26,11 +27,6 @@ export interface OverdueDigestDeps {
   publicUrl: () => string;
 }
 
-/** The UTC calendar day of `now`, YYYY-MM-DD. */
-export function utcDay(now: Date): string {
-  return now.toISOString().slice(0, 10);
-}
-
 /**
  * Sends the digest as of `now` and answers how many messages the mail server accepted and how
  * many tasks are overdue in all. A message that fails is logged; the others still go out.
@@ -39,7 +35,7 @@ export async function sendOverdueDigest(
   deps: OverdueDigestDeps,
   now: Date,
 ): Promise<DigestSentDto> {
-  const today = utcDay(now);
+  const today = todayOf(now);
   const overdue = deps.repository.overdueTasks(today);
   if (overdue.length === 0) {
     return { recipients: 0, overdueTasks: 0 };
