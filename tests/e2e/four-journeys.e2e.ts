@@ -24,11 +24,14 @@ async function rescore(page: Page, url: string, quarter: string): Promise<void> 
   await page.getByRole('button', { name: 'Start re-scoring' }).click();
   const dialog = page.getByRole('dialog');
   const quarterField = dialog.getByLabel('Quarter');
-  // Type only once the form has written its default (this quarter) into the field: a value
-  // typed into the field before that is overwritten.
+  // Type only once the form has written its default (this quarter) into the field, and type
+  // again while the field does not hold the quarter: on a slow machine the dialog's first
+  // rendering has been seen to replace what was typed.
   await expect.poll(() => quarterField.inputValue()).toMatch(/^\d{4}-Q[1-4]$/);
-  await quarterField.fill(quarter);
-  await expect.poll(() => quarterField.inputValue()).toBe(quarter);
+  await expect.poll(async () => {
+    if ((await quarterField.inputValue()) !== quarter) await quarterField.fill(quarter);
+    return quarterField.inputValue();
+  }, { timeout: 15_000 }).toBe(quarter);
   await dialog.getByRole('button', { name: 'Start' }).click();
   // The dialog closes once the re-scoring is queued; a refusal stays in it as an alert.
   const refusal = dialog.getByRole('alert');
