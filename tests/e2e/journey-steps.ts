@@ -41,14 +41,25 @@ export async function startRunFromScreen(page: Page, label: string): Promise<num
 }
 
 /**
+ * Closes every snack bar. Two can be on the page at once while one leaves and the next comes in,
+ * and the leaving one's button goes away by itself, so the first button still there is clicked
+ * until none is left.
+ */
+export async function closeSnackBars(page: Page): Promise<void> {
+  const containers = page.locator('mat-snack-bar-container');
+  for (let tries = 0; tries < 20 && (await containers.count()) > 0; tries++) {
+    await containers.locator('button').first().click({ timeout: 2_000 }).catch(() => undefined);
+    await page.waitForTimeout(200);
+  }
+  if ((await containers.count()) > 0) throw new Error('a snack bar would not close');
+}
+
+/**
  * A screenshot of the whole page: the shell scrolls inside its content pane, so the window is
  * made as tall as the content first; snack bars are closed and focus is let go of.
  */
 export async function fullPageShot(page: Page, name: string): Promise<void> {
-  for (const close of await page.locator('mat-snack-bar-container button').all()) {
-    await close.click();
-  }
-  await page.locator('mat-snack-bar-container').waitFor({ state: 'detached' });
+  await closeSnackBars(page);
   // Strings, not functions: this file is typed without the DOM library.
   await page.evaluate('document.activeElement && document.activeElement.blur()');
   await page.mouse.move(0, 0);
