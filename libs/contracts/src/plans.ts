@@ -292,6 +292,11 @@ export const listPlansQuerySchema = z.object({
   awaitingMe: z.enum(['true', 'false']).transform((v) => v === 'true').optional(),
   status: z.enum(PLAN_STATUSES).optional(),
   entryId: z.coerce.number().int().positive().optional(),
+  /**
+   * `summary` (the default) lists {@link PlanSummaryDto}s; `full` lists whole {@link PlanDto}s
+   * (both what-if sides, decisions, tasks, what the user may do), as the approvals page shows.
+   */
+  detail: z.enum(['summary', 'full']).default('summary'),
   limit: z.coerce.number().int().min(1).max(500).default(100),
   offset: z.coerce.number().int().min(0).default(0),
 });
@@ -301,6 +306,12 @@ export type ListPlansQuery = z.infer<typeof listPlansQuerySchema>;
 /** GET /api/plans answer. */
 export interface PlanListDto {
   items: PlanSummaryDto[];
+  total: number;
+}
+
+/** GET /api/plans?detail=full answer. */
+export interface PlanDetailListDto {
+  items: PlanDto[];
   total: number;
 }
 

@@ -4,7 +4,9 @@
  * and a resubmission; withdrawal; lists and approvals; and the audit trail of every step.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { MyTasksDto, PlanDto, PlanListDto, PlanTaskDetailDto } from '@keelson/contracts';
+import type {
+  MyTasksDto, PlanDetailListDto, PlanDto, PlanListDto, PlanTaskDetailDto,
+} from '@keelson/contracts';
 import { createPlanTestApp, SECOND_SOURCE, type PlanTestApp } from './plan-test-setup';
 
 let s: PlanTestApp;
@@ -76,6 +78,12 @@ describe('a second-source plan from draft to done', () => {
       expect((waiting.body as PlanListDto).items.map((item) => item.id)).toEqual([draft.id]);
       expect((waiting.body as PlanListDto).items[0]!.whatIfAfter)
         .toMatchObject({ singlePointOfFailure: false });
+      // detail=full: the same plans, each whole (as GET /api/plans/:id answers the user).
+      const full = await s.get('north', '/api/plans?awaitingMe=true&detail=full');
+      expect(full.status).toBe(200);
+      expect((full.body as PlanDetailListDto).items)
+        .toEqual([await plan(draft.id, 'north')]);
+      expect((await s.get('north', '/api/plans?detail=everything')).status).toBe(400);
       const none = await s.get('risk', '/api/plans?awaitingMe=true');
       expect((none.body as PlanListDto).total).toBe(0);
 

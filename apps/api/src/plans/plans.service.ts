@@ -8,6 +8,7 @@ import type {
   CreateTaskInput,
   ListPlansQuery,
   PlanChange,
+  PlanDetailListDto,
   PlanDto,
   PlanListDto,
   UpdatePlanInput,
@@ -49,7 +50,7 @@ export class PlansService {
    * A page of the plans the user may see. `awaitingMe` keeps those the user can decide on now
    * (a plant manager's approvals), oldest submission first.
    */
-  list(user: SessionUser, query: ListPlansQuery): PlanListDto {
+  list(user: SessionUser, query: ListPlansQuery): PlanListDto | PlanDetailListDto {
     const { repository, views } = this.deps;
     let plans = repository.plans({ status: query.status, entryId: query.entryId,
       plants: plantScopeOf(user) });
@@ -59,6 +60,9 @@ export class PlansService {
         .sort((a, b) => (a.submittedAt ?? '').localeCompare(b.submittedAt ?? '') || a.id - b.id);
     }
     const page = plans.slice(query.offset, query.offset + query.limit);
+    if (query.detail === 'full') {
+      return { items: page.map((plan) => views.detail(user, plan.id)), total: plans.length };
+    }
     return { items: views.summaries(page), total: plans.length };
   }
 

@@ -6,7 +6,7 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { Session } from '../auth/session';
 import { userWithRole } from '../testing/user-fixtures';
 import { ApprovalsPage } from './approvals-page';
-import { planDetail, planSummary, whatIfResult } from './plan-fixtures';
+import { planDetail, whatIfResult } from './plan-fixtures';
 import { StubPage, button, clearOverlays, plansTestProviders, words } from './plan-spec-helpers';
 
 const WAITING: PlanDto = planDetail(7, {
@@ -37,9 +37,9 @@ describe('ApprovalsPage', () => {
     root = harness.routeNativeElement!;
     await settle();
     const list = expectList();
-    list.flush({ items: plans.map((plan) => planSummary(plan.id, plan)), total: plans.length });
-    await settle();
-    for (const plan of plans) backend.expectOne(`/api/plans/${plan.id}`).flush(plan);
+    // Whole plans in the one list request: no request per plan.
+    expect(list.request.params.get('detail')).toBe('full');
+    list.flush({ items: plans, total: plans.length });
     await settle();
     return list;
   }

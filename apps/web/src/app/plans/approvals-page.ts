@@ -7,7 +7,6 @@ import { MatProgressBar } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { RouterLink } from '@angular/router';
 import { PLAN_STRATEGY_LABELS, type PlanDto } from '@keelson/contracts';
-import { forkJoin, map, of, switchMap } from 'rxjs';
 import { Session } from '../auth/session';
 import { apiErrorMessage } from '../shared/api-error-message';
 import { type DecisionDialogData, DecisionDialog } from './decision-dialog';
@@ -77,18 +76,12 @@ export class ApprovalsPage {
     const query = this.isDecider()
       ? { awaitingMe: true, limit: APPROVALS_LIMIT }
       : { status: 'submitted' as const, limit: APPROVALS_LIMIT };
+    // Whole plans in one request: the cards show both what-if sides and the decisions.
     this.plansApi
-      .list(query)
-      .pipe(
-        // The list has the what-if's after-side only; the cards show both sides.
-        switchMap((page) => (page.items.length === 0
-          ? of({ total: page.total, plans: [] as PlanDto[] })
-          : forkJoin(page.items.map((item) => this.plansApi.get(item.id)))
-            .pipe(map((plans) => ({ total: page.total, plans }))))),
-      )
+      .listFull(query)
       .subscribe({
-        next: ({ total, plans }) => {
-          this.plans.set(plans);
+        next: ({ total, items }) => {
+          this.plans.set(items);
           this.total.set(total);
           this.errorMessage.set(null);
           this.isLoading.set(false);

@@ -8,6 +8,7 @@ import type {
   ListPlansQuery,
   MyTasksDto,
   MyTasksQuery,
+  PlanDetailListDto,
   PlanDto,
   PlanListDto,
   PlanTaskDetailDto,
@@ -20,7 +21,9 @@ import type {
 import type { Observable } from 'rxjs';
 
 /** A query for GET /api/plans; every field is optional (the server has defaults). */
-export type PlansQuery = Partial<Omit<ListPlansQuery, 'awaitingMe'>> & { awaitingMe?: boolean };
+export type PlansQuery = Partial<Omit<ListPlansQuery, 'awaitingMe' | 'detail'>> & {
+  awaitingMe?: boolean;
+};
 
 /**
  * Data access for mitigation plans and their tasks: an entry's plans, one plan, its what-if,
@@ -42,13 +45,16 @@ export class PlansApi {
 
   /** GET /api/plans: plans matching the query (`awaitingMe` for the approvals). */
   list(query: PlansQuery = {}): Observable<PlanListDto> {
-    let params = new HttpParams();
-    for (const [key, value] of Object.entries(query) as [string, unknown][]) {
-      if (value !== undefined && value !== null && value !== '') {
-        params = params.set(key, String(value));
-      }
-    }
-    return this.http.get<PlanListDto>('/api/plans', { params });
+    return this.http.get<PlanListDto>('/api/plans', { params: plansParams(query) });
+  }
+
+  /**
+   * GET /api/plans?detail=full: whole plans (both what-if sides, decisions, tasks) in one
+   * request, as the approvals page shows them.
+   */
+  listFull(query: PlansQuery = {}): Observable<PlanDetailListDto> {
+    return this.http.get<PlanDetailListDto>('/api/plans',
+      { params: plansParams(query).set('detail', 'full') });
   }
 
   /** GET /api/plans/:id: a plan with its what-if, decisions, tasks and what I may do. */
@@ -116,4 +122,15 @@ export class PlansApi {
   owners(): Observable<RegisterOwnersDto> {
     return this.http.get<RegisterOwnersDto>('/api/register/owners');
   }
+}
+
+/** The query of GET /api/plans as parameters; empty values are left out. */
+function plansParams(query: PlansQuery): HttpParams {
+  let params = new HttpParams();
+  for (const [key, value] of Object.entries(query) as [string, unknown][]) {
+    if (value !== undefined && value !== null && value !== '') {
+      params = params.set(key, String(value));
+    }
+  }
+  return params;
 }
