@@ -8,6 +8,19 @@ import { z } from 'zod';
 import type { RatingBand } from './runs';
 import type { RegisterFlag } from './register';
 
+/**
+ * The calendar quarter of `date` in the IANA `timeZone`, as a re-scoring is labelled: `2027-Q1`.
+ * The one definition the server (the scheduled run, the default of a started one) and the web
+ * (the start dialog's default) share. Throws a RangeError for a zone the runtime does not know.
+ */
+export function quarterLabelOf(date: Date, timeZone: string): string {
+  const parts = new Intl.DateTimeFormat('en-GB', { timeZone, year: 'numeric', month: 'numeric' })
+    .formatToParts(date);
+  const year = Number(parts.find((part) => part.type === 'year')!.value);
+  const month = Number(parts.find((part) => part.type === 'month')!.value);
+  return `${year}-Q${Math.floor((month - 1) / 3) + 1}`;
+}
+
 /** Where a re-scoring stands. `interrupted`: the server stopped during it; resume or restart. */
 export const RESCORING_STATUSES = ['queued', 'running', 'succeeded', 'failed', 'interrupted',
   'cancelled'] as const;

@@ -14,7 +14,7 @@ import type { SessionUser } from '../http/auth-context';
 import { fakeScheduler, recordingLogger } from '../notifications/notification-fixtures';
 import { getAs } from '../runs/run-spec-helpers';
 import { ACCOUNT_OF_ROLE, createTestApp, type TestApp } from '../testing/test-app';
-import { nextRunOf, quarterLabelOf, RESCORING_SCHEDULE_DEFAULT } from './rescoring-schedule';
+import { nextRunOf, RESCORING_SCHEDULE_DEFAULT } from './rescoring-schedule';
 import { RESCORING_JOB_NAME } from './rescoring-schedule.service';
 import { mountSecondRescoring } from './rescoring-spec-helpers';
 
@@ -62,18 +62,13 @@ describe('GET and PUT /api/rescoring/schedule', () => {
   });
 });
 
-describe('the next firing and the quarter label', () => {
+describe('the next firing', () => {
   it('agrees with node-cron on the next run counted from now', () => {
     const task = cron.createTask('0 6 * 1,4,7,10 1#1', () => undefined,
       { timezone: 'Europe/Berlin' });
     const [expected] = task.getNextRuns(1);
     void task.destroy();
     expect(nextRunOf('0 6 * 1,4,7,10 1#1', 'Europe/Berlin', new Date())).toEqual(expected);
-  });
-  it('reads the quarter in the zone: New Year in Auckland is still Q4 in UTC', () => {
-    const moment = new Date('2026-12-31T12:00:00.000Z');
-    expect(quarterLabelOf(moment, 'Pacific/Auckland')).toBe('2027-Q1');
-    expect(quarterLabelOf(moment, 'UTC')).toBe('2026-Q4');
   });
 });
 

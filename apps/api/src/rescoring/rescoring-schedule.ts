@@ -117,12 +117,6 @@ function localParts(date: Date, timeZone: string): LocalParts {
     hour: Number(parts['hour']) % 24, minute: Number(parts['minute']) };
 }
 
-/** The calendar quarter of `date` in `timeZone`: `2027-Q1`. */
-export function quarterLabelOf(date: Date, timeZone: string): string {
-  const { year, month } = localParts(date, timeZone);
-  return `${year}-Q${Math.floor((month - 1) / 3) + 1}`;
-}
-
 /**
  * The first time after `from` at which `expression` fires in `timeZone`, or null within five
  * years. node-cron's own `getNextRun()` only counts from the real clock, so this walks forward

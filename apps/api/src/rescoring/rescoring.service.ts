@@ -6,13 +6,14 @@
  */
 import type { Logger } from 'pino';
 import type { KeelsonDatabase } from '@keelson/db';
-import type {
-  AnalysisRunDto,
-  RescoringRunDto,
-  RescoringStatus,
-  RescoringSummaryDto,
-  ResumeRescoringInput,
-  StartRescoringInput,
+import {
+  quarterLabelOf,
+  type AnalysisRunDto,
+  type RescoringRunDto,
+  type RescoringStatus,
+  type RescoringSummaryDto,
+  type ResumeRescoringInput,
+  type StartRescoringInput,
 } from '@keelson/contracts';
 import { recordAudit } from '../audit/audit-trail';
 import { conflict, forbidden, notFound, type AppError } from '../http/app-error';
@@ -27,7 +28,7 @@ import {
   type EntryChange,
   type EntrySnapshot,
 } from './rescoring-register';
-import { loadRescoringSchedule, quarterLabelOf } from './rescoring-schedule';
+import { loadRescoringSchedule } from './rescoring-schedule';
 import {
   isQuarterLockError,
   RescoringRepository,

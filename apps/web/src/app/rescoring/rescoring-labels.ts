@@ -1,4 +1,4 @@
-import type { RescoringStatus } from '@keelson/contracts';
+import { quarterLabelOf, type RescoringStatus } from '@keelson/contracts';
 
 const STATUS_WORDS: Record<RescoringStatus, string> = {
   queued: 'Waiting to start',
@@ -19,19 +19,16 @@ export function isRescoringActive(status: RescoringStatus): boolean {
   return status === 'queued' || status === 'running';
 }
 
-/** The quarter label of a moment in a time zone: `2026-Q4`. Unknown zones fall back to UTC. */
+/**
+ * The quarter label of a moment in a time zone (`2026-Q4`), read as the server reads it
+ * ({@link quarterLabelOf}). An unknown zone falls back to UTC: this is only a default to type over.
+ */
 export function quarterOf(now: Date, timeZone = 'UTC'): string {
-  let parts: Intl.DateTimeFormatPart[];
   try {
-    parts = new Intl.DateTimeFormat('en-GB', { timeZone, year: 'numeric', month: 'numeric' })
-      .formatToParts(now);
+    return quarterLabelOf(now, timeZone);
   } catch {
-    parts = new Intl.DateTimeFormat('en-GB', { timeZone: 'UTC', year: 'numeric',
-      month: 'numeric' }).formatToParts(now);
+    return quarterLabelOf(now, 'UTC');
   }
-  const year = parts.find((part) => part.type === 'year')?.value ?? String(now.getUTCFullYear());
-  const month = Number(parts.find((part) => part.type === 'month')?.value ?? 1);
-  return `${year}-Q${Math.ceil(month / 3)}`;
 }
 
 const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August',
