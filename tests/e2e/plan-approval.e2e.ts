@@ -102,8 +102,18 @@ describe('a mitigation plan from draft to approval', () => {
         .count()).toBe(1);
       await fullPageShot(page, 'plan-6-my-tasks');
 
-      // 9. The audit trail shows the submission and both approvals.
+      // 9. The administrator follows up everyone's tasks: the buyer's task, with its owner.
       await signIn(page, server.url, 'admin@demo.test');
+      await page.getByRole('navigation', { name: 'Main' })
+        .getByRole('link', { name: 'My tasks' }).click();
+      await page.getByRole('radio', { name: 'Everyone\'s' }).click();
+      await page.waitForURL(/\/tasks\?whose=everyone$/);
+      const everyone = page.getByRole('table', { name: 'Everyone\'s tasks' });
+      const taskRow = everyone.getByRole('row').filter({ hasText: TASK_TITLE });
+      await expect.poll(() => taskRow.textContent(), { timeout: 15_000 }).toContain('Bruno Keller');
+      await fullPageShot(page, 'plan-8-everyones-tasks');
+
+      // 10. The audit trail shows the submission and both approvals.
       await page.goto(`${server.url}/admin/audit`);
       await page.getByLabel('Action').fill('plan.');
       await page.getByRole('button', { name: 'Apply' }).click();

@@ -322,15 +322,26 @@ export interface MyTaskDto extends PlanTaskDto {
   };
 }
 
-/** GET /api/tasks/mine query. */
+/** Which tasks a task list shows: open (to do or doing), overdue only, or every status. */
+export const TASK_LIST_SHOWS = ['open', 'overdue', 'all'] as const;
+/** One of {@link TASK_LIST_SHOWS}. */
+export type TaskListShow = (typeof TASK_LIST_SHOWS)[number];
+
+/** GET /api/tasks/mine and GET /api/tasks query. */
 export const myTasksQuerySchema = z.object({
-  /** `open` (todo and doing, the default) or `all`. */
-  show: z.enum(['open', 'all']).default('open'),
+  /**
+   * `open` (todo and doing, the default), `overdue` (open and due before today) or `all`
+   * (every status, also on plans that are done).
+   */
+  show: z.enum(TASK_LIST_SHOWS).default('open'),
 });
-/** GET /api/tasks/mine query. */
+/** GET /api/tasks/mine and GET /api/tasks query. */
 export type MyTasksQuery = z.infer<typeof myTasksQuerySchema>;
 
-/** GET /api/tasks/mine answer: overdue first, then by due date (none last), then id. */
+/**
+ * GET /api/tasks/mine answer (and GET /api/tasks: everyone's, for risk managers and
+ * administrators): overdue first, then by due date (none last), then id.
+ */
 export interface MyTasksDto {
   items: MyTaskDto[];
 }

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { DashboardDto } from '@keelson/contracts';
+import type { DashboardDto, MyTasksDto } from '@keelson/contracts';
 import {
   importBatches,
   mitigationPlans,
@@ -142,6 +142,22 @@ describe('GET /api/dashboard', () => {
       lastImport: { id: lastBatchId, warningCount: 2, errorCount: 3 } });
     expect(body.lastRun?.id).toBe(runId);
   });
+
+  it('counts the overdue tasks the figures link to: everyone\'s and the person\'s own',
+    async () => {
+      const listed = async (email: string, path: string) => {
+        const response = await request(t.app).get(`${path}?show=overdue`)
+          .set({ Authorization: `Bearer ${t.tokenFor(email)}` });
+        expect(response.status).toBe(200);
+        return (response.body as MyTasksDto).items.length;
+      };
+      const risk = ACCOUNT_OF_ROLE.risk_manager;
+      const body = await dashboardOf(risk);
+      expect(await listed(risk, '/api/tasks')).toBe(body.overdueTasks);
+      expect(await listed(risk, '/api/tasks/mine')).toBe(body.myOverdueTasks);
+      const plant = ACCOUNT_OF_ROLE.plant_manager;
+      expect(await listed(plant, '/api/tasks/mine')).toBe((await dashboardOf(plant)).overdueTasks);
+    });
 
   it('gives a plant manager their plants\' top five risks and the plans waiting for them',
     async () => {

@@ -183,9 +183,12 @@ export class PlansRepository {
     return this.selectTasks().where(eq(t.id, id)).get();
   }
 
-  /** A user's tasks on plans in one of `planStatuses`, with one of `taskStatuses`. */
+  /**
+   * A user's tasks (everyone's for `userId` null) on plans in one of `planStatuses`, with one
+   * of `taskStatuses`.
+   */
   tasksOwnedBy(
-    userId: number,
+    userId: number | null,
     planStatuses: readonly PlanStatus[],
     taskStatuses: readonly TaskStatus[],
   ): (TaskRecord & { planStatus: PlanStatus; planStrategy: PlanRow['strategy'];
@@ -195,7 +198,8 @@ export class PlansRepository {
       .from(t)
       .innerJoin(p, eq(p.id, t.planId))
       .leftJoin(users, eq(users.id, t.ownerId))
-      .where(and(eq(t.ownerId, userId), inArray(p.status, [...planStatuses]),
+      .where(and(userId === null ? undefined : eq(t.ownerId, userId),
+        inArray(p.status, [...planStatuses]),
         inArray(t.status, [...taskStatuses])))
       .orderBy(asc(t.id)).all();
   }

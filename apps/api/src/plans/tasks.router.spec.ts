@@ -203,8 +203,52 @@ describe('GET /api/tasks/mine', () => {
       const all = await mine('?show=all');
       expect(all.map((task) => [task.title, task.isOverdue]).slice(0, 2))
         .toEqual([['Overdue', true], ['Long overdue', false]]);
+      expect((await mine('?show=overdue')).map((task) => task.title)).toEqual(['Overdue']);
       const bad = await s.get('admin', '/api/tasks/mine?show=some');
       expect(bad.status).toBe(400);
       expect(bad.body.error.message).toContain('query.show');
+    });
+});
+
+describe('GET /api/tasks', () => {
+  it('lists everyone\'s tasks with their owners for risk managers and administrators only',
+    async () => {
+      const admin = s.t.userId('admin@demo.test');
+      // Today is 2026-03-02 (the test clock).
+      const plan = await approve(await s.draft('S-1-001', { tasks: [
+        { title: 'Viewer, overdue', ownerId: viewer, dueDate: '2026-02-27' },
+        { title: 'Buyer, later', ownerId: buyer, dueDate: '2026-04-01' },
+        { title: 'Nobody, overdue', ownerId: null, dueDate: '2026-02-28' },
+      ] }));
+      await s.draft('S-1-001', { tasks: [{ title: 'Draft, overdue', ownerId: admin,
+        dueDate: '2026-01-01' }] });
+      const everyone = async (account: 'risk' | 'admin', query = '') =>
+        ((await s.get(account, `/api/tasks${query}`)).body as MyTasksDto).items;
+
+      const open = await everyone('risk');
+      const ours = open.filter((task) => task.planId === plan.id);
+      expect(ours.map((task) => [task.title, task.owner?.id ?? null, task.isOverdue])).toEqual([
+        ['Viewer, overdue', viewer, true], ['Nobody, overdue', null, true],
+        ['Buyer, later', buyer, false]]);
+      // Overdue first over all plans; a draft's tasks are not on yet, so never listed.
+      const firstNotOverdue = open.findIndex((task) => !task.isOverdue);
+      expect(open.slice(firstNotOverdue).some((task) => task.isOverdue)).toBe(false);
+      expect(open.some((task) => task.title === 'Draft, overdue')).toBe(false);
+      // The same list as each owner's own, put together.
+      const adminsOwn = ((await s.get('admin', '/api/tasks/mine')).body as MyTasksDto).items;
+      expect(open.filter((task) => task.owner?.id === admin).map((task) => task.id))
+        .toEqual(adminsOwn.map((task) => task.id));
+
+      const overdue = await everyone('admin', '?show=overdue');
+      expect(overdue.length).toBeGreaterThanOrEqual(2);
+      expect(overdue.every((task) => task.isOverdue)).toBe(true);
+      expect(overdue.map((task) => task.id))
+        .toEqual(open.filter((task) => task.isOverdue).map((task) => task.id));
+
+      for (const account of ['north', 'buyer', 'viewer'] as const) {
+        const refused = await s.get(account, '/api/tasks');
+        expect(refused.status).toBe(403);
+        expect(refused.body.error.message).toMatch(/risk manager/i);
+      }
     });
 });

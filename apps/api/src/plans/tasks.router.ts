@@ -15,7 +15,7 @@ const idParams = z.object({ id: z.coerce.number().int().positive() });
 
 /**
  * `/api/tasks`: my tasks and a task with its comments for every signed-in role (within their
- * plants); changes by the owner, risk managers and administrators (the service decides which);
+ * plants); everyone's tasks for risk managers and administrators; changes by the owner, risk managers and administrators (the service decides which);
  * deletion by risk managers and administrators; comments by anyone who may see the plan.
  */
 export function createTasksRouter(tasks: TasksService): Router {
@@ -27,6 +27,15 @@ export function createTasksRouter(tasks: TasksService): Router {
     handler: (req, res) => {
       const query = parseInput(myTasksQuerySchema, req.query, 'query');
       res.json(tasks.mine(sessionUser(req), query));
+    },
+  });
+  route(router, {
+    method: 'get',
+    path: '/',
+    roles: PLAN_WRITERS,
+    handler: (req, res) => {
+      const query = parseInput(myTasksQuerySchema, req.query, 'query');
+      res.json(tasks.everyone(query));
     },
   });
   route(router, {

@@ -21,8 +21,15 @@ import type { SessionUser } from '../http/auth-context';
 import { latestNetworkVersionId } from '../network/network-store';
 import { toPlanTaskDto, toTaskCommentDto } from './plan-dto';
 import type { PlanEvents } from './plan-events';
-import { assertEditable, isActivePlan, isEditable, isPlanWriter, notEditable, todayOf }
-  from './plan-rules';
+import {
+  ACTIVE_STATUSES,
+  assertEditable,
+  isActivePlan,
+  isEditable,
+  isPlanWriter,
+  notEditable,
+  todayOf,
+} from './plan-rules';
 import { reopenIfRejected, settleActivePlan, type TransitionContext } from './plan-transitions';
 import type { LoadedPlan, PlanViews } from './plan-views';
 import type { PlansRepository, TaskRecord } from './plans.repository';
@@ -44,14 +51,27 @@ export class TasksService {
   constructor(private readonly deps: TasksServiceDeps) {}
 
   /**
-   * The user's tasks on active plans (`show=open`: to do or doing; `all`: every status, and
-   * also the tasks of plans that are done): overdue first, then by due date (none last), then id.
+   * The user's tasks on active plans (`show=open`: to do or doing; `overdue`: those due before
+   * today; `all`: every status, and also the tasks of plans that are done): overdue first, then
+   * by due date (none last), then id.
    */
   mine(user: SessionUser, query: MyTasksQuery): MyTasksDto {
+    return this.list(user.id, query);
+  }
+
+  /**
+   * Everyone's tasks, as {@link mine} lists them, with their owners: for risk managers and
+   * administrators (the router checks the role), who follow every plant's plans.
+   */
+  everyone(query: MyTasksQuery): MyTasksDto {
+    return this.list(null, query);
+  }
+
+  private list(ownerId: number | null, query: MyTasksQuery): MyTasksDto {
     const { repository, db } = this.deps;
     const planStatuses: PlanStatus[] = query.show === 'all'
-      ? ['approved', 'in_progress', 'done'] : ['approved', 'in_progress'];
-    const rows = repository.tasksOwnedBy(user.id, planStatuses,
+      ? ['approved', 'in_progress', 'done'] : [...ACTIVE_STATUSES];
+    const rows = repository.tasksOwnedBy(ownerId, planStatuses,
       query.show === 'all' ? ALL_TASKS : OPEN_TASKS);
     const entries = repository.entries(latestNetworkVersionId(db),
       rows.map((row) => row.entryId));
@@ -62,7 +82,7 @@ export class TasksService {
         plan: { id: row.planId, strategy: row.planStrategy, status: row.planStatus,
           entry: { id: row.entryId, title: entry?.title ?? '',
             supplierCode: entry?.supplierCode ?? '' } } };
-    });
+    }).filter((task) => query.show !== 'overdue' || task.isOverdue);
     items.sort((a, b) => Number(b.isOverdue) - Number(a.isOverdue)
       || compareDueDates(a.dueDate, b.dueDate) || a.id - b.id);
     return { items };

@@ -63,7 +63,7 @@ describe('dashboardCards', () => {
     expect(cardOf(cards, 'approvals').figures.map((f) => [f.value, f.label, url(f.link)]))
       .toEqual([[5, 'plans waiting for approval', '/approvals']]);
     expect(cardOf(cards, 'tasks').figures.map((f) => [f.value, url(f.link)]))
-      .toEqual([[3, '/tasks'], [1, '/tasks']]);
+      .toEqual([[3, '/tasks?whose=everyone&show=overdue'], [1, '/tasks?show=overdue']]);
     expect(cardOf(cards, 'run').figures.map((f) => [f.value, url(f.link)]))
       .toEqual([['Spring review', '/runs/7']]);
     const rescoring = cardOf(cards, 'rescoring');

@@ -182,14 +182,16 @@ function tasksCard(dto: DashboardDto, role: Role): DashboardCard {
   const all = RUNNERS.includes(role);
   const figures: DashboardFigure[] = [{ value: count,
     label: all ? `overdue ${plural(count, 'task')} on all plans` : `of your tasks overdue`,
-    link: { path: '/tasks' } }];
+    link: { path: '/tasks', query: all ? { whose: 'everyone', show: 'overdue' }
+      : { show: 'overdue' } } }];
   if (all && dto.myOverdueTasks !== undefined && dto.myOverdueTasks !== null) {
-    figures.push({ value: dto.myOverdueTasks, label: 'of them yours', link: { path: '/tasks' } });
+    figures.push({ value: dto.myOverdueTasks, label: 'of them yours',
+      link: { path: '/tasks', query: { show: 'overdue' } } });
   }
   return {
     id: 'tasks', icon: 'task_alt', title: 'Overdue tasks',
     note: 'Tasks to do or under way whose due date has passed (UTC), on approved plans.' +
-      (all ? ' My tasks lists yours; the weekly digest e-mail lists all of them.' : ''),
+      (all ? ' The figures open the overdue tasks of everyone and your own.' : ''),
     figures,
     empty: count === 0 ? { text: 'Nothing is overdue.' } : undefined,
   };

@@ -91,7 +91,7 @@ describe('HomePage', () => {
       expect(linkNamed(card('approvals'), 'plans waiting for approval')!.getAttribute('href'))
         .toBe('/approvals');
       expect(linkNamed(card('tasks'), 'overdue tasks on all plans')!.getAttribute('href'))
-        .toBe('/tasks');
+        .toBe('/tasks?whose=everyone&show=overdue');
       expect(linkNamed(card('run'), 'Spring review')!.getAttribute('href')).toBe('/runs/7');
       expect(words(card('rescoring'))).toContain('No quarterly re-scoring yet.');
       high.click();

@@ -1,7 +1,8 @@
 import { HttpTestingController, type TestRequest } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
+import { Router } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { MyTaskDto } from '@keelson/contracts';
+import type { MyTaskDto, Role } from '@keelson/contracts';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { Session } from '../auth/session';
 import { userWithRole } from '../testing/user-fixtures';
@@ -25,9 +26,18 @@ describe('MyTasksPage', () => {
     harness.detectChanges();
   }
 
-  function expectTasks(show: string): TestRequest {
+  function expectTasks(show: string, url = '/api/tasks/mine'): TestRequest {
     return backend.expectOne((request) =>
-      request.url === '/api/tasks/mine' && request.params.get('show') === show);
+      request.url === url && request.params.get('show') === show);
+  }
+
+  function toggle(label: string): HTMLElement {
+    return [...root.querySelectorAll<HTMLElement>('mat-button-toggle button')]
+      .find((candidate) => words(candidate) === label)!;
+  }
+
+  function headers(): string[] {
+    return [...root.querySelectorAll('th')].map((cell) => words(cell));
   }
 
   function titles(): string[] {
@@ -35,12 +45,13 @@ describe('MyTasksPage', () => {
       .map((cell) => words(cell).split(' Plan ')[0]!);
   }
 
-  async function open(tasks = TASKS): Promise<void> {
-    TestBed.inject(Session).signIn(userWithRole('buyer'));
-    harness = await RouterTestingHarness.create('/tasks');
+  async function open(tasks = TASKS, role: Role = 'buyer', url = '/tasks',
+    expected: [string, string] = ['open', '/api/tasks/mine']): Promise<void> {
+    TestBed.inject(Session).signIn(userWithRole(role));
+    harness = await RouterTestingHarness.create(url);
     root = harness.routeNativeElement!;
     await settle();
-    expectTasks('open').flush({ items: tasks });
+    expectTasks(...expected).flush({ items: tasks });
     await settle();
   }
 
@@ -100,12 +111,48 @@ describe('MyTasksPage', () => {
   it('shows all tasks on "All", and says when there are none', async () => {
     await open([]);
     expect(words(root.querySelector('.tasks__empty'))).toContain('No open tasks for you.');
-    [...root.querySelectorAll<HTMLElement>('mat-button-toggle button')]
-      .find((toggle) => words(toggle) === 'All')!
-      .click();
+    toggle('All').click();
     await settle();
     expectTasks('all').flush({ items: [myTask(44, { status: 'done' })] });
     await settle();
     expect(titles()).toEqual(['Qualify the second caster (44)']);
+  });
+
+  it('lets a risk manager switch to everyone\'s tasks, with their owners, in the address',
+    async () => {
+      await open(TASKS, 'risk_manager');
+      expect(words(root.querySelector('h1'))).toBe('My tasks');
+      expect(headers()).not.toContain('Owner');
+      toggle('Everyone\'s').click();
+      await settle();
+      expectTasks('open', '/api/tasks').flush({ items: [
+        myTask(45, { title: 'Call the forge', owner: { id: 9, name: 'Ilse Varga' },
+          isOverdue: true }),
+        myTask(46, { title: 'Count the stock', owner: null })] });
+      await settle();
+      expect(TestBed.inject(Router).url).toBe('/tasks?whose=everyone');
+      expect(words(root.querySelector('h1'))).toBe('Everyone\'s tasks');
+      expect(headers().slice(0, 2)).toEqual(['Task', 'Owner']);
+      const owners = [...root.querySelectorAll('tr.mat-mdc-row td:nth-child(2)')]
+        .map((cell) => words(cell));
+      expect(owners).toEqual(['Ilse Varga', 'Nobody yet']);
+      toggle('Overdue').click();
+      await settle();
+      expectTasks('overdue', '/api/tasks').flush({ items: [] });
+      await settle();
+      expect(TestBed.inject(Router).url).toBe('/tasks?whose=everyone&show=overdue');
+      expect(words(root.querySelector('.tasks__empty'))).toContain('No task is overdue.');
+    });
+
+  it('opens on the filters of its address, as the home page links to it', async () => {
+    await open([], 'admin', '/tasks?whose=everyone&show=overdue', ['overdue', '/api/tasks']);
+    expect(words(root.querySelector('h1'))).toBe('Everyone\'s tasks');
+  });
+
+  it('keeps a buyer to their own tasks whatever the address says', async () => {
+    await open([], 'buyer', '/tasks?whose=everyone&show=overdue', ['overdue', '/api/tasks/mine']);
+    expect(words(root.querySelector('h1'))).toBe('My tasks');
+    expect(toggle('Everyone\'s')).toBeUndefined();
+    expect(words(root.querySelector('.tasks__empty'))).toContain('None of your tasks is overdue.');
   });
 });

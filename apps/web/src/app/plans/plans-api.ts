@@ -98,6 +98,12 @@ export class PlansApi {
     return this.http.get<MyTasksDto>('/api/tasks/mine', { params });
   }
 
+  /** GET /api/tasks: everyone's tasks with their owners (risk managers and admins). */
+  everyoneTasks(query: Partial<MyTasksQuery> = {}): Observable<MyTasksDto> {
+    const params = query.show ? new HttpParams().set('show', query.show) : new HttpParams();
+    return this.http.get<MyTasksDto>('/api/tasks', { params });
+  }
+
   /** GET /api/tasks/:id: a task with its comments and plan. */
   task(id: number): Observable<PlanTaskDetailDto> {
     return this.http.get<PlanTaskDetailDto>(`/api/tasks/${id}`);
