@@ -20,6 +20,7 @@ import { serveWebClient } from './http/web-client';
 import { createMailRouter } from './mail/mail.router';
 import { MailRepository } from './mail/mail.repository';
 import { MailService } from './mail/mail.service';
+import { MailOutbox } from './mail/mail-outbox';
 import type { Mailer } from './mail/mailer';
 import { mountAuditRoutes } from './audit/audit.module';
 import { mountComparisonRoutes } from './comparison/comparison.module';
@@ -112,11 +113,16 @@ export function createKeelsonApp(deps: AppDeps): KeelsonApp {
   );
   app.use('/api/users', createUsersRouter(users));
   app.use('/api/plants', createPlantsRouter(plants));
-  app.use('/api/admin/mail', createMailRouter(mail));
+  const outbox = new MailOutbox({ db, mailer: deps.mailer, logger: deps.logger, now });
+  app.use('/api/admin/mail', createMailRouter(mail, outbox));
   const closers: (() => void | Promise<void>)[] = [];
   const featureDeps = { config, db, logger: deps.logger, now, plants: plantsRepository,
-    graphs: new NetworkGraphCache(db), mailer: deps.mailer,
+    graphs: new NetworkGraphCache(db), mailer: deps.mailer, outbox,
     onClose: (close: () => void | Promise<void>) => void closers.push(close) };
+  // Closed last (the closers run in reverse): the features' last messages are written first.
+  featureDeps.onClose(() => outbox.close());
+  // Sends what a stopped server left waiting, then retries on a timer; tests drive it by hand.
+  if (config.mode !== 'test') outbox.start();
   mountImportRoutes(app, featureDeps);
   mountNetworkRoutes(app, featureDeps);
   const runs = mountRunRoutes(app, featureDeps);

@@ -112,6 +112,35 @@ export interface MailMessageDto extends MailSummaryDto {
   html: string | null;
 }
 
+/** A notification e-mail the SMTP server has not taken yet. */
+export interface MailOutboxItemDto {
+  id: number;
+  /** The kind of message (`plan_submitted`, `digest`, `rescoring`, ...). */
+  kind: string;
+  to: string[];
+  subject: string;
+  /** `pending`: tried again at `nextAttemptAt`; `failed`: given up after its last try. */
+  status: 'pending' | 'failed';
+  attempts: number;
+  nextAttemptAt: string;
+  lastError: string | null;
+  createdAt: string;
+}
+
+/** GET /api/admin/mail/outbox answer: counts and the oldest unsent messages (up to 100). */
+export interface MailOutboxDto {
+  pending: number;
+  failed: number;
+  items: MailOutboxItemDto[];
+}
+
+/** POST /api/admin/mail/outbox/send answer: how many of the unsent messages went out. */
+export interface MailOutboxSentDto {
+  sent: number;
+  /** Still not taken by the server (tried again later). */
+  unsent: number;
+}
+
 /** The error body of every failed API call. */
 export interface ApiErrorBody {
   error: { code: string; message: string; details?: unknown };

@@ -822,6 +822,42 @@ export const mailPreferences = sqliteTable('mail_preferences', {
   updatedAt: text('updated_at').notNull(),
 });
 
+/** Where an e-mail of the outbox stands: waiting (to be tried again), accepted, given up. */
+export const MAIL_OUTBOX_STATUSES = ['pending', 'sent', 'failed'] as const;
+
+/**
+ * Every notification e-mail, written before it is sent so none is lost: a message the SMTP
+ * server did not take is tried again later, and one left waiting when the server stopped goes
+ * out on the next start. A re-scoring writes its messages in the run's own transaction.
+ */
+export const mailOutbox = sqliteTable(
+  'mail_outbox',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    /** The kind of message (`plan_submitted`, `digest`, `rescoring`, ...). */
+    kind: text('kind').notNull(),
+    /** JSON array of recipient addresses. */
+    toAddresses: text('to_addresses', { mode: 'json' }).$type<string[]>().notNull(),
+    subject: text('subject').notNull(),
+    text: text('text').notNull(),
+    html: text('html').notNull(),
+    status: text('status', { enum: MAIL_OUTBOX_STATUSES }).notNull().default('pending'),
+    /** Tries so far. */
+    attempts: integer('attempts').notNull().default(0),
+    /** When a pending message is tried next. */
+    nextAttemptAt: text('next_attempt_at').notNull(),
+    /** The SMTP error of the last failed try. */
+    lastError: text('last_error'),
+    createdAt: text('created_at').notNull(),
+    sentAt: text('sent_at'),
+  },
+  (table) => [
+    index('mail_outbox_due_index').on(table.status, table.nextAttemptAt),
+    check('mail_outbox_status_check',
+      sql`${table.status} in ('pending', 'sent', 'failed')`),
+  ],
+);
+
 /** A row of `users`. */
 export type UserRow = typeof users.$inferSelect;
 /** A new row of `users`. */
@@ -834,6 +870,8 @@ export type InvitationRow = typeof invitations.$inferSelect;
 export type MailMessageRow = typeof mailMessages.$inferSelect;
 /** A new row of `mail_messages`. */
 export type NewMailMessageRow = typeof mailMessages.$inferInsert;
+/** A row of `mail_outbox`. */
+export type MailOutboxRow = typeof mailOutbox.$inferSelect;
 /** A row of `import_batches`. */
 export type ImportBatchRow = typeof importBatches.$inferSelect;
 /** A row of `network_versions`. */

@@ -21,6 +21,7 @@ import {
 import type { MailKind, PlanStatus, PlanStrategy, Role, TaskStatus } from '@keelson/contracts';
 import type { AppConfig } from '../config/app-config';
 import type { FeatureDeps } from '../feature-deps';
+import { MailOutbox } from '../mail/mail-outbox';
 import { NetworkGraphCache } from '../network/network-graph-cache';
 import type { TestApp } from '../testing/test-app';
 import type { DigestScheduler } from './digest-schedule';
@@ -191,14 +192,17 @@ export function mountNotifications(
 ): MountedNotifications {
   const app = express();
   const closers: (() => void | Promise<void>)[] = [];
+  const logger = options.logger ?? silentLogger();
+  const mailer = options.mailer ?? t.mailer;
   const deps: FeatureDeps = {
     config: { ...t.config, ...options.config },
     db: t.database.db,
-    logger: options.logger ?? silentLogger(),
+    logger,
     now: () => t.clock.now,
     plants: { managersOf: () => [] } as unknown as FeatureDeps['plants'],
     graphs: new NetworkGraphCache(t.database.db),
-    mailer: options.mailer ?? t.mailer,
+    mailer,
+    outbox: new MailOutbox({ db: t.database.db, mailer, logger, now: () => t.clock.now }),
     onClose: (close) => void closers.push(close),
   };
   const notifier = mountNotificationRoutes(app, deps, {

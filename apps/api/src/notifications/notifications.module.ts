@@ -26,7 +26,7 @@ export function mountNotificationRoutes(
   const repository = new NotificationsRepository(deps.db);
   // Read per message: the server may learn its real port after the app is built.
   const publicUrl = () => deps.config.publicUrl;
-  const mailDeps = { repository, mailer: deps.mailer, logger: deps.logger, publicUrl };
+  const mailDeps = { repository, outbox: deps.outbox, logger: deps.logger, publicUrl };
   const notifier = createPlanNotifier(mailDeps);
   const sendDigest = (now: Date) => sendOverdueDigest(mailDeps, now);
 

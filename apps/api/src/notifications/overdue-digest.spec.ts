@@ -1,4 +1,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { eq } from 'drizzle-orm';
+import { mailOutbox } from '@keelson/db';
+import { MAIL_RETRY_DELAYS_MS, MailOutbox } from '../mail/mail-outbox';
 import { createTestApp, type TestApp } from '../testing/test-app';
 import {
   caughtMail,
@@ -61,8 +64,10 @@ beforeAll(async () => {
     dueDate: '2026-03-06' });
   insertTask(db, { planId: approved, title: 'J: no due date', ownerId: buyer, dueDate: null });
   unsubscribe(db, viewer, ['digest']);
-  deps = { repository: new NotificationsRepository(db), mailer: t.mailer,
-    logger: recordingLogger(), publicUrl: () => URL };
+  const logger = recordingLogger();
+  deps = { repository: new NotificationsRepository(db),
+    outbox: new MailOutbox({ db, mailer: t.mailer, logger, now: () => t.clock.now }),
+    logger, publicUrl: () => URL };
 });
 afterAll(() => t.close());
 beforeEach(() => clearMail(t.database.db));
@@ -128,10 +133,22 @@ describe('sendOverdueDigest', () => {
 
   it('counts only the messages the mail server accepted', async () => {
     const logger = recordingLogger();
-    const refusing = { ...deps, logger, mailer: { send: () => Promise.reject(new Error('down')),
-      close() {} } };
+    const db = t.database.db;
+    const refusing = { ...deps, logger, outbox: new MailOutbox({ db, logger,
+      now: () => t.clock.now,
+      mailer: { send: () => Promise.reject(new Error('down')), close() {} } }) };
     expect(await sendOverdueDigest(refusing, NOW)).toEqual({ recipients: 0, overdueTasks: 5 });
     expect(logger.errors).toHaveLength(2);
+    // Nothing is lost: both wait in the outbox, and go out on a later pass once the server works.
+    const waiting = db.select().from(mailOutbox).where(eq(mailOutbox.status, 'pending')).all()
+      .filter((row) => row.kind === 'digest');
+    expect(waiting.map((row) => [row.attempts, row.lastError])).toEqual([[1, 'down'], [1, 'down']]);
+    const before = t.clock.now;
+    t.clock.now = new Date(before.getTime() + MAIL_RETRY_DELAYS_MS[0]!);
+    expect(await deps.outbox.deliver()).toBe(2);
+    t.clock.now = before;
+    expect(caughtMail(db).map((message) => message.toAddresses[0]).sort())
+      .toEqual(['buyer@demo.test', 'risk@demo.test']);
   });
 });
 

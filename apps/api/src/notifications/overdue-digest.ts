@@ -9,7 +9,7 @@
  */
 import type { Logger } from 'pino';
 import type { DigestSentDto } from '@keelson/contracts';
-import type { Mailer } from '../mail/mailer';
+import type { MailOutbox } from '../mail/mail-outbox';
 import { todayOf } from '../plans/plan-rules';
 import { digestEmail } from './notification-emails';
 import type {
@@ -22,14 +22,15 @@ import { sendEach, wantsMail } from './plan-notifier';
 /** What {@link sendOverdueDigest} needs. */
 export interface OverdueDigestDeps {
   repository: NotificationsRepository;
-  mailer: Mailer;
+  outbox: MailOutbox;
   logger: Logger;
   publicUrl: () => string;
 }
 
 /**
  * Sends the digest as of `now` and answers how many messages the mail server accepted and how
- * many tasks are overdue in all. A message that fails is logged; the others still go out.
+ * many tasks are overdue in all. A message the server refuses stays in the outbox to be tried
+ * again; the others still go out.
  */
 export async function sendOverdueDigest(
   deps: OverdueDigestDeps,
@@ -63,7 +64,7 @@ export async function sendOverdueDigest(
       today,
       publicUrl,
     }));
-  const sent = await sendEach(deps.mailer, deps.logger, 'digest', messages);
+  const sent = await sendEach(deps.outbox, 'digest', messages);
   deps.logger.info({ recipients: sent, overdueTasks: overdue.length, today },
     'sent the digest of overdue tasks');
   return { recipients: sent, overdueTasks: overdue.length };

@@ -1,4 +1,6 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { eq } from 'drizzle-orm';
+import { mailOutbox } from '@keelson/db';
 import type { Mailer } from '../mail/mailer';
 import { createTestApp, type TestApp } from '../testing/test-app';
 import {
@@ -247,7 +249,12 @@ describe('delivery failures', () => {
       expect(caughtMail(t.database.db).map((message) => message.toAddresses))
         .toEqual([['plant.south@demo.test']]);
       expect(logger.errors).toHaveLength(1);
-      expect(logger.errors[0]![1]).toBe('could not send a notification e-mail');
+      expect(logger.errors[0]![1]).toBe('could not send an e-mail; will try again');
+      // The refused message waits in the outbox for its next try.
+      const waiting = t.database.db.select().from(mailOutbox)
+        .where(eq(mailOutbox.status, 'pending')).all();
+      expect(waiting.map((row) => [row.kind, row.toAddresses, row.attempts, row.lastError]))
+        .toEqual([['plan_submitted', ['plant.north@demo.test'], 1, 'SMTP said 451']]);
       await own.close();
     });
 

@@ -5,7 +5,8 @@
  */
 import type { Logger } from 'pino';
 import type { MailKind } from '@keelson/contracts';
-import type { Mailer, OutgoingMail } from '../mail/mailer';
+import type { MailOutbox } from '../mail/mail-outbox';
+import type { OutgoingMail } from '../mail/mailer';
 import type {
   PlanDecidedEvent,
   PlanEvents,
@@ -24,7 +25,8 @@ export interface PlanNotifier extends PlanEvents {
 /** What {@link createPlanNotifier} needs. */
 export interface PlanNotifierDeps {
   repository: NotificationsRepository;
-  mailer: Mailer;
+  /** Writes each message before sending it, and tries again those the server refuses. */
+  outbox: MailOutbox;
   logger: Logger;
   /** Read at each delivery: the server learns its real port after the app is built. */
   publicUrl: () => string;
@@ -36,37 +38,28 @@ export function wantsMail(recipient: MailRecipient, kind: MailKind): boolean {
 }
 
 /**
- * Sends `messages` one by one; a failure of one is logged and the others still go out.
- * Resolves to how many the SMTP server accepted.
+ * Writes `messages` to the outbox and sends them one by one; one the server refuses stays in
+ * the outbox to be tried again, and the others still go out. Resolves to how many the SMTP
+ * server accepted now.
  */
 export async function sendEach(
-  mailer: Mailer,
-  logger: Logger,
+  outbox: MailOutbox,
   kind: MailKind,
   messages: readonly OutgoingMail[],
 ): Promise<number> {
-  let sent = 0;
-  for (const message of messages) {
-    try {
-      await mailer.send(message);
-      sent += 1;
-    } catch (error) {
-      logger.error({ err: error, kind, to: message.to }, 'could not send a notification e-mail');
-    }
-  }
-  return sent;
+  return outbox.send(kind, messages);
 }
 
 /** Builds the listener. */
 export function createPlanNotifier(deps: PlanNotifierDeps): PlanNotifier {
-  const { repository, mailer, logger } = deps;
+  const { repository, outbox, logger } = deps;
   const pending = new Set<Promise<void>>();
 
   const deliver = (kind: MailKind, event: object, build: () => OutgoingMail[]): void => {
     try {
       const job: Promise<void> = Promise.resolve()
         .then(async () => {
-          await sendEach(mailer, logger, kind, build());
+          await sendEach(outbox, kind, build());
         })
         .catch((error: unknown) => {
           logger.error({ err: error, kind, event }, 'could not prepare notification e-mails');

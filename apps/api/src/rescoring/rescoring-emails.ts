@@ -1,20 +1,20 @@
 /**
- * The e-mails sent once a re-scoring has committed: every active risk manager gets the summary
+ * The e-mails of a re-scoring, written to the outbox in the transaction that commits it: every active risk manager gets the summary
  * and the list of what changed; every owner of an entry whose rating changed gets their own
  * entries (title, supplier, old and new rating with band, flag). A risk manager who owns such
  * entries gets one message with both. Kind `rescoring` in the mail settings switches them off.
  * Built on the notifications' layout (text and HTML from the same blocks, escaped there).
  */
-import type { Logger } from 'pino';
 import type { KeelsonDatabase } from '@keelson/db';
 import type { RegisterFlag, RescoringSummaryDto } from '@keelson/contracts';
-import type { Mailer, OutgoingMail } from '../mail/mailer';
+import type { MailOutbox } from '../mail/mail-outbox';
+import type { OutgoingMail } from '../mail/mailer';
 import { layoutMail, type MailBlock } from '../notifications/mail-layout';
 import {
   NotificationsRepository,
   type MailRecipient,
 } from '../notifications/notifications.repository';
-import { sendEach, wantsMail } from '../notifications/plan-notifier';
+import { wantsMail } from '../notifications/plan-notifier';
 import type { EntryChange } from './rescoring-register';
 
 const DECISION_SUPPORT =
@@ -27,11 +27,9 @@ const FLAG_WORDS: Record<RegisterFlag, string> = {
   no_longer_matters: 'flagged: no longer a single point of failure and rated low',
 };
 
-/** What {@link sendRescoringMails} needs. */
+/** What {@link enqueueRescoringMails} needs. */
 export interface RescoringMailDeps {
-  db: KeelsonDatabase;
-  mailer: Mailer;
-  logger: Logger;
+  outbox: MailOutbox;
   publicUrl: () => string;
 }
 
@@ -142,12 +140,13 @@ export function rescoringEmails(finished: FinishedRescoring, riskManagers: MailR
 }
 
 /**
- * Sends the messages of a finished re-scoring to those who want them; resolves to how many the
- * mail server accepted (a failure of one is logged, the others still go out).
+ * Writes the messages of a finished re-scoring to the outbox in `tx`, the transaction that
+ * commits the re-scoring, so they exist exactly when it does (a server stopped before they went
+ * out sends them on its next start). Returns their ids for {@link MailOutbox.deliver}.
  */
-export async function sendRescoringMails(deps: RescoringMailDeps,
-  finished: FinishedRescoring): Promise<number> {
-  const repository = new NotificationsRepository(deps.db);
+export function enqueueRescoringMails(tx: KeelsonDatabase, deps: RescoringMailDeps,
+  finished: FinishedRescoring): number[] {
+  const repository = new NotificationsRepository(tx);
   const riskManagers = repository.recipientsWithRole('risk_manager')
     .filter((recipient) => wantsMail(recipient, 'rescoring'));
   const ownerIds = [...new Set(finished.changes.filter(isRatingChange)
@@ -155,5 +154,5 @@ export async function sendRescoringMails(deps: RescoringMailDeps,
   const owners = repository.recipients(ownerIds)
     .filter((recipient) => wantsMail(recipient, 'rescoring'));
   const messages = rescoringEmails(finished, riskManagers, owners, deps.publicUrl());
-  return sendEach(deps.mailer, deps.logger, 'rescoring', messages);
+  return deps.outbox.enqueue('rescoring', messages, tx);
 }

@@ -43,6 +43,7 @@ describe('a hook that throws inside the run transaction', () => {
     async () => {
       const before = entryRows(t);
       const auditBefore = countOf(t, 'audit_events');
+      const outboxBefore = countOf(t, 'mail_outbox');
       const stages: string[] = [];
       const unhookBefore = second.runs.onSucceededInTransaction((tx, run) => {
         stages.push(`before:${countOf(t, 'register_entries')}:${run.status}`);
@@ -69,6 +70,9 @@ describe('a hook that throws inside the run transaction', () => {
       expect(before.find((row) => row.supplier_code === 'S-2-SHARED-A')!.rating).toBe(1);
       expect(scoreRows(t, started.id)).toEqual([]);
       expect(countOf(t, 'run_suppliers where run_id = ?', run.id)).toBe(0);
+      // The e-mails were written in the same transaction (before the throwing hook), so none is
+      // left to tell of a re-scoring that did not happen.
+      expect(countOf(t, 'mail_outbox')).toBe(outboxBefore);
       // Only the start and the failure are recorded: no run.succeeded, no flag changes.
       expect(t.database.sqlite.prepare('select action from audit_events where id > ? ' +
         'order by id').all(auditBefore)).toEqual([{ action: 'rescoring.started' },
@@ -87,7 +91,9 @@ describe('a hook that throws inside the run transaction', () => {
       .toBeGreaterThan(1);
     expect(scoreRows(t, failed.id).length).toBe(entryRows(t).length);
     await second.rescoring.settled();
-    expect(second.rescoring.get(failed.id).summary!.mailsSent).toBeGreaterThan(0);
+    const mailsSent = second.rescoring.get(failed.id).summary!.mailsSent;
+    expect(mailsSent).toBeGreaterThan(0);
+    expect(countOf(t, "mail_outbox where kind = 'rescoring' and status = 'sent'")).toBe(mailsSent);
   }, 60_000);
 });
 

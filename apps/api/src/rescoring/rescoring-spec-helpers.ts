@@ -8,6 +8,7 @@ import express from 'express';
 import type { RescoringRunDto, Role } from '@keelson/contracts';
 import type { FeatureDeps } from '../feature-deps';
 import { createLogger } from '../http/request-logging';
+import { MailOutbox } from '../mail/mail-outbox';
 import { NetworkGraphCache } from '../network/network-graph-cache';
 import type { DigestScheduler } from '../notifications/digest-schedule';
 import { RunQueue } from '../runs/run-queue';
@@ -82,6 +83,8 @@ export function mountSecondRescoring(t: TestApp, options: {
     plants: { managersOf: () => [] } as unknown as FeatureDeps['plants'],
     graphs: new NetworkGraphCache(t.database.db),
     mailer: t.mailer,
+    outbox: new MailOutbox({ db: t.database.db, mailer: t.mailer,
+      logger: options.logger ?? createLogger('silent'), now: () => t.clock.now }),
     onClose: (close) => void closers.push(close),
   };
   const runs = new RunsService({ db: t.database.db, now: () => t.clock.now,

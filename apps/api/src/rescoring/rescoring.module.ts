@@ -33,7 +33,7 @@ export function mountRescoringRoutes(app: Express, deps: FeatureDeps, runs: Runs
   // Read per message: the server may learn its real port after the app is built.
   const publicUrl = () => deps.config.publicUrl;
   const rescoring = new RescoringService({ db: deps.db, now: deps.now, logger: deps.logger,
-    runs, mailer: deps.mailer, publicUrl });
+    runs, outbox: deps.outbox, publicUrl });
   const interrupted = rescoring.interruptUnfinished();
   if (interrupted > 0) {
     deps.logger.warn({ rescorings: interrupted },

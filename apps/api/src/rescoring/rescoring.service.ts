@@ -18,14 +18,13 @@ import {
 import { recordAudit } from '../audit/audit-trail';
 import { conflict, forbidden, notFound, type AppError } from '../http/app-error';
 import type { SessionUser } from '../http/auth-context';
-import type { Mailer } from '../mail/mailer';
+import type { MailOutbox } from '../mail/mail-outbox';
 import type { RunRecord } from '../runs/runs.repository';
 import { FINISHED_STATUSES, type RunsService } from '../runs/runs.service';
-import { sendRescoringMails } from './rescoring-emails';
+import { enqueueRescoringMails } from './rescoring-emails';
 import {
   applyRescoring,
   snapshotEntries,
-  type EntryChange,
   type EntrySnapshot,
 } from './rescoring-register';
 import { loadRescoringSchedule } from './rescoring-schedule';
@@ -51,17 +50,18 @@ export interface RescoringServiceDeps {
   now: () => Date;
   logger: Logger;
   runs: RunsService;
-  mailer: Mailer;
+  outbox: MailOutbox;
   publicUrl: () => string;
 }
 
 /** Starts, follows, resumes and cancels re-scorings. */
 export class RescoringService {
   private readonly repository: RescoringRepository;
-  // Per analysis run: the entries before the register sync, then what the re-scoring changed
-  // (both live only between the run's transaction and its settled hook).
+  // Per analysis run: the entries before the register sync, then the ids of the e-mails the
+  // re-scoring wrote to the outbox (both live only between the run's transaction and its
+  // settled hook; the e-mails themselves are in the database).
   private readonly snapshots = new Map<number, Map<number, EntrySnapshot>>();
-  private readonly outcomes = new Map<number, EntryChange[]>();
+  private readonly outcomes = new Map<number, number[]>();
   private readonly mailing = new Set<Promise<void>>();
 
   constructor(private readonly deps: RescoringServiceDeps) {
@@ -286,19 +286,24 @@ export class RescoringService {
       subjectId: rescoring.id, userId: rescoring.startedBy, before: { status: rescoring.status },
       after: { status: 'succeeded', quarterLabel: rescoring.quarterLabel, analysisRunId: run.id,
         networkVersionId: run.networkVersionId, ...counts } }, finishedAt);
-    this.outcomes.set(run.id, outcome.changes);
+    const previous = summary.previousRescoringId === null ? undefined
+      : this.repository.find(summary.previousRescoringId, tx);
+    this.outcomes.set(run.id, enqueueRescoringMails(tx, this.deps, { id: rescoring.id,
+      quarterLabel: rescoring.quarterLabel, analysisRunId: run.id,
+      previousAnalysisRunId: previous?.analysisRunId ?? null, summary,
+      changes: outcome.changes }));
   }
 
   /** After the run's transaction: its outcome for the re-scoring, then the e-mails. */
   private settle(run: AnalysisRunDto): void {
     this.snapshots.delete(run.id);
-    const changes = this.outcomes.get(run.id);
+    const mailIds = this.outcomes.get(run.id);
     this.outcomes.delete(run.id);
     if (run.kind !== 'quarterly') return;
     const rescoring = this.repository.findByAnalysisRun(run.id);
     if (!rescoring) return;
     if (run.status === 'succeeded') {
-      if (changes && rescoring.status === 'succeeded') this.track(this.mail(rescoring, changes));
+      if (mailIds && rescoring.status === 'succeeded') this.track(this.mail(rescoring, mailIds));
       return;
     }
     if (!ACTIVE.includes(rescoring.status)) return;
@@ -319,17 +324,14 @@ export class RescoringService {
     void promise.finally(() => this.mailing.delete(promise));
   }
 
-  private async mail(rescoring: RescoringRecord, changes: EntryChange[]): Promise<void> {
+  /** Sends the e-mails the re-scoring wrote, and counts those the server took in its summary. */
+  private async mail(rescoring: RescoringRecord, mailIds: number[]): Promise<void> {
     try {
+      const sent = await this.deps.outbox.deliver(mailIds);
       const summary = rescoring.summary as unknown as RescoringSummaryDto;
-      const previous = summary.previousRescoringId === null ? undefined
-        : this.repository.find(summary.previousRescoringId);
-      const sent = await sendRescoringMails(this.deps, { id: rescoring.id,
-        quarterLabel: rescoring.quarterLabel, analysisRunId: rescoring.analysisRunId!,
-        previousAnalysisRunId: previous?.analysisRunId ?? null, summary, changes });
       this.repository.update(rescoring.id, { summary: { ...summary, mailsSent: sent } });
-      this.deps.logger.info({ rescoringId: rescoring.id, mailsSent: sent },
-        'sent the e-mails of a finished re-scoring');
+      this.deps.logger.info({ rescoringId: rescoring.id, mailsSent: sent,
+        mailsWaiting: mailIds.length - sent }, 'sent the e-mails of a finished re-scoring');
     } catch (error) {
       this.deps.logger.error({ err: error, rescoringId: rescoring.id },
         'could not send the e-mails of a finished re-scoring');
