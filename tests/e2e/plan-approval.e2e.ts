@@ -7,6 +7,7 @@
  * administrator sees the e-mails in Sent mail and the steps in the audit trail; the buyer finds
  * the task in My tasks. Screenshots go to docs/screens/plan-*.png.
  */
+import Database from 'better-sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openBrowser, type BrowserSession } from './browser';
 import { apiGet, fullPageShot, signIn, startRunFromScreen } from './journey-steps';
@@ -18,6 +19,22 @@ import {
   submitPlan,
 } from './plan-steps';
 import { startTestServer, type TestServer } from './server';
+
+const REFUSED_SUBJECT = 'Weekly digest: 1 overdue task';
+
+/** Writes a given-up e-mail into the server's outbox, as six refused tries would leave it. */
+function giveUpOnAnEmail(databasePath: string): void {
+  const sqlite = new Database(databasePath);
+  try {
+    sqlite.prepare(`insert into mail_outbox (kind, to_addresses, subject, text, html, status,
+      attempts, next_attempt_at, last_error, created_at) values ('digest', ?, ?, ?, ?, 'failed',
+      6, ?, '421 service not available', ?)`).run(JSON.stringify(['risk@demo.test']),
+      REFUSED_SUBJECT, 'One task is overdue.', '<p>One task is overdue.</p>',
+      new Date().toISOString(), new Date(Date.now() - 86_400_000).toISOString());
+  } finally {
+    sqlite.close();
+  }
+}
 
 describe('a mitigation plan from draft to approval', () => {
   let server: TestServer;
@@ -90,7 +107,24 @@ describe('a mitigation plan from draft to approval', () => {
       expect(subjects).toContain('Plan approved for P-NORTH');
       expect(subjects).toContain('Plan approved for P-SOUTH');
       expect(subjects).toContain(`Task assigned to you: ${TASK_TITLE}`);
+      await page.getByText('Every notification e-mail has been taken by the mail server.')
+        .waitFor();
       await fullPageShot(page, 'plan-5-mail');
+
+      // 7b. An e-mail the mail server refused until the outbox gave up (written here, as an
+      // SMTP outage would leave it) is listed with its error and goes out on "Send them now".
+      giveUpOnAnEmail(server.databasePath);
+      await page.getByRole('button', { name: 'Refresh' }).click();
+      const unsent = page.getByRole('table', { name: 'E-mails not sent yet' });
+      await expect.poll(() => unsent.textContent(), { timeout: 15_000 })
+        .toContain('Given up after 6 tries');
+      expect(await unsent.textContent()).toContain('421 service not available');
+      await fullPageShot(page, 'mail-outbox');
+      await page.getByRole('button', { name: 'Send them now' }).click();
+      await expect.poll(() => mail.textContent(), { timeout: 15_000 })
+        .toContain(REFUSED_SUBJECT);
+      await page.getByText('Every notification e-mail has been taken by the mail server.')
+        .waitFor();
 
       // 8. The buyer finds the task in My tasks.
       await signIn(page, server.url, 'buyer@demo.test');

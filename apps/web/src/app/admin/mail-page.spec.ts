@@ -48,6 +48,7 @@ describe('MailPage', () => {
     expect(list.request.params.get('limit')).toBe('25');
     expect(list.request.params.get('offset')).toBe('0');
     list.flush({ items: [SUMMARY], total: 1 });
+    backend.expectOne('/api/admin/mail/outbox').flush({ pending: 0, failed: 0, items: [] });
     await fixture.whenStable();
   });
 

@@ -1,5 +1,12 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  inject,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -14,6 +21,7 @@ import { EMPTY, Subject, catchError, map, merge, of, switchMap } from 'rxjs';
 import { apiErrorMessage } from '../shared/api-error-message';
 import { ConfirmDialog, type ConfirmDialogData } from '../shared/confirm-dialog';
 import { MailApi } from './mail-api';
+import { MailOutboxPanel } from './mail-outbox-panel';
 
 /** Messages per page of the list. */
 export const MAIL_PAGE_SIZE = 25;
@@ -33,13 +41,15 @@ export function digestOutcome(sent: DigestSentDto): string {
 /**
  * "Sent mail": the messages the server's local mail sink caught (invitations and notices), newest
  * first. Choosing one shows its text part and its HTML part, the latter in a fully sandboxed
- * frame. "Send the digest now" sends the weekly digest of overdue tasks without waiting for its
+ * frame. Above the list, the outbox: e-mails the mail server has not taken yet, with "Send them
+ * now". "Send the digest now" sends the weekly digest of overdue tasks without waiting for its
  * schedule, after a confirmation.
  */
 @Component({
   selector: 'kl-mail-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, MatButton, MatIcon, MatPaginator, MatProgressBar, MatTableModule],
+  imports: [DatePipe, MailOutboxPanel, MatButton, MatIcon, MatPaginator, MatProgressBar,
+    MatTableModule],
   templateUrl: './mail-page.html',
   styleUrl: './mail-page.scss',
 })
@@ -49,6 +59,7 @@ export class MailPage {
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
   private readonly reloads = new Subject<void>();
+  private readonly outboxPanel = viewChild.required(MailOutboxPanel);
 
   protected readonly columns = ['receivedAt', 'to', 'subject'] as const;
   protected readonly pageSize = MAIL_PAGE_SIZE;
@@ -133,6 +144,12 @@ export class MailPage {
   }
 
   protected refresh(): void {
+    this.reloads.next();
+    this.outboxPanel().reload();
+  }
+
+  /** Messages left the outbox: the list of sent mail has them now. */
+  protected onOutboxSent(): void {
     this.reloads.next();
   }
 
