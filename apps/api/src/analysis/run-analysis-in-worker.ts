@@ -3,9 +3,6 @@
  * blocks the API's event loop. Progress arrives as messages; aborting the signal terminates the
  * worker at once (the engine itself is synchronous) and rejects with `AnalysisCancelledError`.
  */
-import { existsSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
-import { Worker } from 'node:worker_threads';
 import type { SupplyModel } from '@keelson/contracts';
 import {
   AnalysisCancelledError,
@@ -19,6 +16,7 @@ import type {
   AnalysisWorkerMessage,
   SerialisedError,
 } from './analysis-worker';
+import { startTsWorker } from './ts-worker';
 
 /** The failure set of the scenario, as in `analyse()`. */
 export interface WorkerAnalysisOptions {
@@ -33,19 +31,6 @@ export interface WorkerRunHooks {
 }
 
 const workerUrl = new URL('./analysis-worker.ts', import.meta.url);
-const tsconfigPath = fileURLToPath(new URL('../../../../tsconfig.json', import.meta.url));
-const tsxApi =
-  typeof import.meta.resolve === 'function' ? import.meta.resolve('tsx/esm/api') : 'tsx/esm/api';
-
-/**
- * The worker's entry: registers tsx's loader, then imports the TypeScript worker. Node 20 ignores
- * `--import` in a Worker's `execArgv` (checked on 20.20: a preload given there never runs), so
- * `execArgv: ['--import', 'tsx']` alone fails with "Unknown file extension .ts"; registering
- * through tsx's API inside the thread works on Node 20 and later alike.
- */
-const bootstrap =
-  `import(${JSON.stringify(tsxApi)})` +
-  `.then((tsx) => { tsx.register(); return import(${JSON.stringify(workerUrl.href)}); })`;
 
 /**
  * Analyses `model` in a new worker thread. Resolves with the analysis; rejects with
@@ -62,14 +47,7 @@ export function runAnalysisInWorker(
   return new Promise<AnalysisResult>((resolve, reject) => {
     const { fail, failCountry } = options;
     const input: AnalysisWorkerInput = { model, fail, failCountry };
-    const worker = new Worker(bootstrap, {
-      eval: true,
-      workerData: input,
-      // tsx resolves the @keelson/* aliases from this tsconfig whatever the working directory.
-      env: existsSync(tsconfigPath)
-        ? { ...process.env, TSX_TSCONFIG_PATH: tsconfigPath }
-        : process.env,
-    });
+    const worker = startTsWorker(workerUrl, input);
     let stage = 'start';
     let settled = false;
     const finish = (outcome: () => void) => {

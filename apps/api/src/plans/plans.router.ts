@@ -96,10 +96,10 @@ export function createPlansRouter(deps: PlanRouterDeps): Router {
     method: 'post',
     path: '/:id/what-if',
     roles: PLAN_WRITERS,
-    handler: (req, res) => {
+    handler: async (req, res) => {
       const { id } = parseInput(idParams, req.params, 'params');
       const body = parseInput(whatIfSchema, req.body, 'body');
-      res.json(plans.whatIf(sessionUser(req), id, body.changes));
+      res.json(await plans.whatIf(sessionUser(req), id, body.changes));
     },
   });
   route(router, {

@@ -40,7 +40,8 @@ const userOf = (account: keyof typeof ACCOUNTS): SessionUser => {
 };
 
 describe('plan events', () => {
-  it('tells of the submission, each decision and the assignments, after the commit', () => {
+  it('tells of the submission, each decision and the assignments, after the commit',
+    async () => {
     heard = [];
     const risk = userOf('risk');
     const buyer = userOf('buyer');
@@ -49,7 +50,7 @@ describe('plan events', () => {
       targetDate: null, changes: SECOND_SOURCE,
       tasks: [{ title: 'Drawings', ownerId: buyer.id, dueDate: null },
         { title: 'Nobody yet', ownerId: null, dueDate: null }] });
-    services.plans.whatIf(risk, plan.id, undefined);
+    await services.plans.whatIf(risk, plan.id, undefined);
     // Owner changes on a draft are no assignment yet: the tasks start at approval.
     services.tasks.update(risk, plan.tasks[1]!.id, { ownerId: risk.id });
     services.tasks.update(risk, plan.tasks[1]!.id, { ownerId: null });

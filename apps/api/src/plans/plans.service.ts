@@ -29,7 +29,7 @@ import { assertEditable, canonicalJson, WITHDRAWABLE_STATUSES } from './plan-rul
 import { movePlan, reopenIfRejected, type TransitionContext } from './plan-transitions';
 import type { PlanViews } from './plan-views';
 import type { PlansRepository } from './plans.repository';
-import { evaluateWhatIf } from './what-if';
+import { evaluateWhatIfInWorker, type WhatIfEvaluator } from './evaluate-what-if-in-worker';
 
 /** What the plans service is built from. */
 export interface PlansServiceDeps {
@@ -37,6 +37,8 @@ export interface PlansServiceDeps {
   views: PlanViews;
   db: KeelsonDatabase;
   now: () => Date;
+  /** Where the what-if is computed: a worker thread unless a spec gives another. */
+  evaluateWhatIf?: WhatIfEvaluator;
 }
 
 /** The editable fields of a plan, as stored. */
@@ -133,13 +135,15 @@ export class PlansService {
   /**
    * Runs the what-if on the latest network version: the entry's supplier failing alone, before
    * and after the changes (those in the body, saved to the plan first, or the plan's own), and
-   * stores the result with the plan.
+   * stores the result with the plan. The computing happens in a worker thread; the plan is read
+   * and checked again once it is done, since it may have been submitted or edited meanwhile.
    */
-  whatIf(user: SessionUser, id: number, bodyChanges: PlanChange[] | undefined): PlanDto {
+  async whatIf(user: SessionUser, id: number, bodyChanges: PlanChange[] | undefined):
+    Promise<PlanDto> {
     const { repository, views, db } = this.deps;
-    const { plan, entry } = views.plan(user, id);
-    assertEditable(plan);
-    const changes = bodyChanges ?? changesOf(plan);
+    const { plan: asked, entry } = views.plan(user, id);
+    assertEditable(asked);
+    const changes = bodyChanges ?? changesOf(asked);
     const versionId = latestNetworkVersionId(db);
     const model = versionId === null ? null : readNetworkModel(db, versionId);
     if (versionId === null || model === null) {
@@ -148,8 +152,15 @@ export class PlansService {
     }
     const hazards = new Map(new CountriesRepository(db).list()
       .map((country) => [countryKey(country.code), country.hazard]));
-    const sides = evaluateWhatIf(model, entry.supplierCode, changes, { hazards,
+    const evaluate = this.deps.evaluateWhatIf ?? evaluateWhatIfInWorker;
+    const sides = await evaluate(model, entry.supplierCode, changes, { hazards,
       settings: loadScoringSettings(db), likelihoodOverride: entry.likelihoodOverride });
+    const { plan } = views.plan(user, id);
+    assertEditable(plan);
+    if (bodyChanges === undefined && canonicalJson(changes) !== canonicalJson(plan.changes)) {
+      throw conflict('plan_changed', 'The plan\'s network changes were edited while the ' +
+        'what-if ran; run it again.');
+    }
     const now = this.deps.now();
     const result: WhatIfResultDto = { networkVersionId: versionId,
       supplierCode: entry.supplierCode, changes, before: sides.before, after: sides.after,
