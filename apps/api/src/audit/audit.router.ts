@@ -4,10 +4,9 @@ import { exportAuditQuerySchema, listAuditQuerySchema } from '@keelson/contracts
 import { sessionUser } from '../http/auth-context';
 import { parseInput } from '../http/parse-input';
 import { route, SIGNED_IN } from '../http/route';
+import { sendXlsx } from '../http/xlsx-response';
 import { buildAuditWorkbook } from './audit-export';
 import type { AuditService } from './audit.service';
-
-const XLSX_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 
 const historyParams = z.object({
   subjectType: z.string().trim().min(1).max(40).regex(/^[a-z_]+$/, 'lower-case letters and _'),
@@ -37,9 +36,7 @@ export function createAuditRouter(service: AuditService, now: () => Date): Route
       const query = parseInput(exportAuditQuerySchema, req.query, 'query');
       const at = now();
       const bytes = await buildAuditWorkbook(service.exportRows(query), query, at);
-      res.status(200).type(XLSX_TYPE)
-        .attachment(`keelson-audit-${at.toISOString().slice(0, 10)}.xlsx`)
-        .send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
+      sendXlsx(res, bytes, `keelson-audit-${at.toISOString().slice(0, 10)}.xlsx`);
     },
   });
   route(router, {

@@ -4,10 +4,10 @@ import { comparisonQuerySchema } from '@keelson/contracts';
 import { sessionUser } from '../http/auth-context';
 import { parseInput } from '../http/parse-input';
 import { route, SIGNED_IN } from '../http/route';
+import { sendXlsx } from '../http/xlsx-response';
 import { buildComparisonWorkbook } from './comparison-export';
 import type { ComparisonService } from './comparison.service';
 
-const XLSX_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 const entryParams = z.object({ entryId: z.coerce.number().int().positive() });
 
 /** What the comparison router needs. */
@@ -41,9 +41,7 @@ export function createComparisonRouter(deps: ComparisonRouterDeps): Router {
       const query = parseInput(comparisonQuerySchema, req.query, 'query');
       const result = comparison.compare(sessionUser(req), query);
       const bytes = await buildComparisonWorkbook(result, deps.now());
-      res.status(200).type(XLSX_TYPE)
-        .attachment(`keelson-comparison-${result.fromRun.id}-${result.toRun.id}.xlsx`)
-        .send(Buffer.from(bytes));
+      sendXlsx(res, bytes, `keelson-comparison-${result.fromRun.id}-${result.toRun.id}.xlsx`);
     },
   });
   route(router, {

@@ -13,6 +13,7 @@ import { invalidRequest } from '../http/app-error';
 import { sessionUser } from '../http/auth-context';
 import { parseInput } from '../http/parse-input';
 import { route, SIGNED_IN } from '../http/route';
+import { XLSX_TYPE } from '../http/xlsx-response';
 import type { ImportsService, MappingChoice } from './imports.service';
 import { FILE_FIELD, singleFileUpload } from './upload-middleware';
 
@@ -27,7 +28,6 @@ export const IMPORT_CONTENT_READERS: readonly [Role, ...Role[]] =
   ['admin', 'buyer', 'risk_manager', 'viewer'];
 
 /** The media type of .xlsx downloads. */
-export const XLSX_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() });
 const mappingId = z.coerce.number().int().positive();

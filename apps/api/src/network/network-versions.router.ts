@@ -10,14 +10,13 @@ import {
 import { sessionUser } from '../http/auth-context';
 import { parseInput } from '../http/parse-input';
 import { route, SIGNED_IN } from '../http/route';
+import { sendXlsx } from '../http/xlsx-response';
 import type { NetworkCatalogService } from './network-catalog.service';
 import type { NetworkSuppliersService } from './network-suppliers.service';
 import type { NetworkVersionsService } from './network-versions.service';
 
 const versionParams = z.object({ id: z.coerce.number().int().positive() });
 const codeParams = versionParams.extend({ code: z.string().trim().min(1).max(120) });
-
-const XLSX_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 
 /** The services behind `/api/network-versions`. */
 export interface NetworkVersionsRouterDeps {
@@ -116,11 +115,7 @@ export function createNetworkVersionsRouter(deps: NetworkVersionsRouterDeps): Ro
     handler: async (req, res) => {
       const { id } = parseInput(versionParams, req.params, 'params');
       const { bytes, fileName } = await versions.exportWorkbook(id);
-      res
-        .status(200)
-        .type(XLSX_TYPE)
-        .attachment(fileName)
-        .send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
+      sendXlsx(res, bytes, fileName);
     },
   });
   return router;

@@ -3,8 +3,11 @@
  * draft or rejected and worked on once it is approved (by the owner, a risk manager or an
  * administrator), deletion, comments with their audit record, and the order of my tasks.
  */
+import ExcelJS from 'exceljs';
+import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { MyTasksDto, PlanDto, PlanTaskDetailDto } from '@keelson/contracts';
+import { ACCOUNT_OF_ROLE } from '../testing/test-app';
 import { createPlanTestApp, type PlanTestApp } from './plan-test-setup';
 
 let s: PlanTestApp;
@@ -249,6 +252,60 @@ describe('GET /api/tasks', () => {
         const refused = await s.get(account, '/api/tasks');
         expect(refused.status).toBe(403);
         expect(refused.body.error.message).toMatch(/risk manager/i);
+        expect((await s.get(account, '/api/tasks/export.xlsx')).status).toBe(403);
       }
+
+      // The export holds the same rows in the same order, with the list's scope on "About".
+      const exported = await download('risk', '/api/tasks/export.xlsx?show=overdue');
+      expect(exported.fileName).toBe('keelson-tasks-everyone-overdue-2026-03-02.xlsx');
+      expect(exported.rows.map((row) => row['Task'])).toEqual(overdue.map((task) => task.title));
+      const viewerRow = exported.rows.find((row) => row['Task'] === 'Viewer, overdue')!;
+      expect(viewerRow).toMatchObject({ Due: '2026-02-27', Overdue: 'yes',
+        Status: 'To do', Plan: `Plan ${plan.id}: Second source` });
+      expect(exported.about[1]).toContain(`${overdue.length} of everyone's overdue tasks`);
+      expect(exported.about[2]).toContain('before 2026-03-02 (today, UTC)');
     });
+
+  it('exports my own tasks for every role, named after me', async () => {
+    const mine = await download('buyer', '/api/tasks/mine/export.xlsx?show=all');
+    const listed = ((await s.get('buyer', '/api/tasks/mine?show=all')).body as MyTasksDto).items;
+    expect(mine.rows.map((row) => row['Task'])).toEqual(listed.map((task) => task.title));
+    expect(mine.rows.length).toBeGreaterThan(0);
+    expect(mine.header).toEqual(['Task', 'Owner', 'Status', 'Due', 'Overdue', 'Plan',
+      'Plan status', 'Register entry', 'Supplier']);
+    expect(mine.about[1]).toContain('Bruno Keller\'s tasks in every status');
+    expect((await s.get('buyer', '/api/tasks/mine/export.xlsx?show=some')).status).toBe(400);
+  });
 });
+
+/** Downloads a task workbook and reads its "Tasks" rows and "About" lines back with exceljs. */
+async function download(account: 'risk' | 'buyer', path: string) {
+  const response = await request(s.t.app).get(path)
+    .set({ Authorization: `Bearer ${s.t.tokenFor(ACCOUNT_OF_ROLE[account === 'risk'
+      ? 'risk_manager' : 'buyer'])}` })
+    .buffer(true)
+    .parse((res, done) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (chunk: Buffer) => chunks.push(chunk));
+      res.on('end', () => done(null, Buffer.concat(chunks)));
+    });
+  expect(response.status).toBe(200);
+  expect(response.headers['content-type']).toContain('spreadsheetml');
+  const fileName = /filename="?([^";]+)"?/
+    .exec(String(response.headers['content-disposition']))![1];
+  const workbook = new ExcelJS.Workbook();
+  const bytes = response.body as Buffer;
+  await workbook.xlsx.load(
+    bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
+  const sheet = workbook.getWorksheet('Tasks')!;
+  const header = (sheet.getRow(1).values as ExcelJS.CellValue[]).slice(1).map(String);
+  const rows: Record<string, string>[] = [];
+  sheet.eachRow((row, number) => {
+    if (number === 1) return;
+    const values = (row.values as ExcelJS.CellValue[]).slice(1);
+    rows.push(Object.fromEntries(header.map((name, i) => [name, String(values[i] ?? '')])));
+  });
+  const about: string[] = [];
+  workbook.getWorksheet('About')!.eachRow((row) => about.push(String(row.getCell(1).value)));
+  return { fileName, header, rows, about };
+}

@@ -8,15 +8,17 @@ import {
 import { sessionUser } from '../http/auth-context';
 import { parseInput } from '../http/parse-input';
 import { route, SIGNED_IN } from '../http/route';
+import { sendXlsx } from '../http/xlsx-response';
 import { PLAN_WRITERS } from './plan-rules';
 import type { TasksService } from './tasks.service';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() });
 
 /**
- * `/api/tasks`: my tasks and a task with its comments for every signed-in role (within their
- * plants); everyone's tasks for risk managers and administrators; changes by the owner, risk managers and administrators (the service decides which);
- * deletion by risk managers and administrators; comments by anyone who may see the plan.
+ * `/api/tasks`: my tasks (and their export) and a task with its comments for every signed-in
+ * role (within their plants); everyone's tasks and their export for risk managers and
+ * administrators; changes by the owner, risk managers and administrators (the service decides
+ * which); deletion by risk managers and administrators; comments by anyone who may see the plan.
  */
 export function createTasksRouter(tasks: TasksService): Router {
   const router = Router();
@@ -27,6 +29,26 @@ export function createTasksRouter(tasks: TasksService): Router {
     handler: (req, res) => {
       const query = parseInput(myTasksQuerySchema, req.query, 'query');
       res.json(tasks.mine(sessionUser(req), query));
+    },
+  });
+  route(router, {
+    method: 'get',
+    path: '/mine/export.xlsx',
+    roles: SIGNED_IN,
+    handler: async (req, res) => {
+      const query = parseInput(myTasksQuerySchema, req.query, 'query');
+      const { bytes, fileName } = await tasks.exportWorkbook(sessionUser(req), 'mine', query);
+      sendXlsx(res, bytes, fileName);
+    },
+  });
+  route(router, {
+    method: 'get',
+    path: '/export.xlsx',
+    roles: PLAN_WRITERS,
+    handler: async (req, res) => {
+      const query = parseInput(myTasksQuerySchema, req.query, 'query');
+      const { bytes, fileName } = await tasks.exportWorkbook(sessionUser(req), 'everyone', query);
+      sendXlsx(res, bytes, fileName);
     },
   });
   route(router, {

@@ -33,6 +33,7 @@ import {
 import { reopenIfRejected, settleActivePlan, type TransitionContext } from './plan-transitions';
 import type { LoadedPlan, PlanViews } from './plan-views';
 import type { PlansRepository, TaskRecord } from './plans.repository';
+import { buildTasksWorkbook } from './tasks-export';
 
 /** What the tasks service is built from. */
 export interface TasksServiceDeps {
@@ -65,6 +66,18 @@ export class TasksService {
    */
   everyone(query: MyTasksQuery): MyTasksDto {
     return this.list(null, query);
+  }
+
+  /** The list of {@link mine} or {@link everyone} as a workbook, with its file name. */
+  async exportWorkbook(user: SessionUser, whose: 'mine' | 'everyone', query: MyTasksQuery):
+    Promise<{ bytes: Uint8Array; fileName: string }> {
+    const list = whose === 'everyone' ? this.everyone(query) : this.mine(user, query);
+    const now = this.deps.now();
+    const today = todayOf(now);
+    const bytes = await buildTasksWorkbook(list.items, {
+      whose: whose === 'everyone' ? 'everyone' : { mine: user.name }, show: query.show }, now,
+    today);
+    return { bytes, fileName: `keelson-tasks-${whose}-${query.show}-${today}.xlsx` };
   }
 
   private list(ownerId: number | null, query: MyTasksQuery): MyTasksDto {

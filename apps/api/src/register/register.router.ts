@@ -11,11 +11,11 @@ import type { ScoringSettings } from '@keelson/scoring';
 import { sessionUser } from '../http/auth-context';
 import { parseInput } from '../http/parse-input';
 import { route, SIGNED_IN } from '../http/route';
+import { sendXlsx } from '../http/xlsx-response';
 import { buildRegisterWorkbook } from './register-export';
 import type { RegisterService } from './register.service';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() });
-const XLSX_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 const WRITERS = ['risk_manager', 'admin'] as const;
 
 /** What the register router needs. */
@@ -50,9 +50,7 @@ export function createRegisterRouter(deps: RegisterRouterDeps): Router {
       const now = deps.now();
       const rows = register.exportRows(sessionUser(req), query);
       const bytes = await buildRegisterWorkbook(rows, deps.settings(), now);
-      res.status(200).type(XLSX_TYPE)
-        .attachment(`keelson-register-${now.toISOString().slice(0, 10)}.xlsx`)
-        .send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
+      sendXlsx(res, bytes, `keelson-register-${now.toISOString().slice(0, 10)}.xlsx`);
     },
   });
   route(router, {

@@ -9,6 +9,7 @@ import {
 import { sessionUser } from '../http/auth-context';
 import { parseInput } from '../http/parse-input';
 import { route, SIGNED_IN } from '../http/route';
+import { sendXlsx } from '../http/xlsx-response';
 import { runRankingWorkbook } from './run-export';
 import type { RunResultsService } from './run-results.service';
 import { FINISHED_STATUSES, type RunsService } from './runs.service';
@@ -16,7 +17,6 @@ import { FINISHED_STATUSES, type RunsService } from './runs.service';
 const runParams = z.object({ id: z.coerce.number().int().positive() });
 const supplierParams = runParams.extend({ code: z.string().trim().min(1).max(120) });
 
-const XLSX_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 /** The export's query: the ranking's sort and filters, without paging. */
 const exportRunSuppliersQuerySchema = listRunSuppliersQuerySchema.omit({ limit: true,
   offset: true });
@@ -126,7 +126,7 @@ export function createRunsRouter(deps: RunsRouterDeps): Router {
       const query = parseInput(exportRunSuppliersQuerySchema, req.query, 'query');
       const { run, rows } = results.everySupplier(sessionUser(req), id, query);
       const bytes = await runRankingWorkbook(run, rows);
-      res.status(200).type(XLSX_TYPE).attachment(`keelson-run-${id}-ranking.xlsx`).send(bytes);
+      sendXlsx(res, bytes, `keelson-run-${id}-ranking.xlsx`);
     },
   });
   return router;

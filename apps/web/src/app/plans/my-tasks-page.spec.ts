@@ -141,6 +141,10 @@ describe('MyTasksPage', () => {
       expectTasks('overdue', '/api/tasks').flush({ items: [] });
       await settle();
       expect(TestBed.inject(Router).url).toBe('/tasks?whose=everyone&show=overdue');
+      // The export follows the list on screen.
+      const exportLink = [...root.querySelectorAll('a')]
+        .find((link) => words(link).includes('Export to xlsx'))!;
+      expect(exportLink.getAttribute('href')).toBe('/api/tasks/export.xlsx?show=overdue');
       expect(words(root.querySelector('.tasks__empty'))).toContain('No task is overdue.');
     });
 
@@ -152,6 +156,8 @@ describe('MyTasksPage', () => {
   it('keeps a buyer to their own tasks whatever the address says', async () => {
     await open([], 'buyer', '/tasks?whose=everyone&show=overdue', ['overdue', '/api/tasks/mine']);
     expect(words(root.querySelector('h1'))).toBe('My tasks');
+    expect([...root.querySelectorAll('a')].find((link) => words(link).includes('Export'))!
+      .getAttribute('href')).toBe('/api/tasks/mine/export.xlsx?show=overdue');
     expect(toggle('Everyone\'s')).toBeUndefined();
     expect(words(root.querySelector('.tasks__empty'))).toContain('None of your tasks is overdue.');
   });

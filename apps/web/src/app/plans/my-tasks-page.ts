@@ -9,7 +9,7 @@ import {
   viewChild,
 } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
-import { MatButton } from '@angular/material/button';
+import { MatAnchor, MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import { MatIcon } from '@angular/material/icon';
 import { MatProgressBar } from '@angular/material/progress-bar';
@@ -81,6 +81,7 @@ export function taskSortValue(task: MyTaskDto, column: string): string | number 
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     DatePipe,
+    MatAnchor,
     MatButton,
     MatButtonToggle,
     MatButtonToggleGroup,
@@ -109,6 +110,8 @@ export class MyTasksPage implements AfterViewInit {
     this.mayListEveryone).show);
   protected readonly whose = computed(() => readTaskFilters(this.filters(),
     this.mayListEveryone).whose);
+  protected readonly exportUrl = computed(() =>
+    this.plansApi.tasksExportUrl(this.whose(), this.filter()));
   protected readonly title = computed(() => (this.whose() === 'everyone'
     ? 'Everyone\'s tasks' : 'My tasks'));
   protected readonly columns = computed(() => (this.whose() === 'everyone'

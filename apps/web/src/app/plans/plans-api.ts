@@ -98,6 +98,12 @@ export class PlansApi {
     return this.http.get<MyTasksDto>('/api/tasks/mine', { params });
   }
 
+  /** The address of a task list's xlsx export: mine, or everyone's (risk managers, admins). */
+  tasksExportUrl(whose: 'mine' | 'everyone', show: MyTasksQuery['show']): string {
+    return `${whose === 'everyone' ? '/api/tasks/export.xlsx' : '/api/tasks/mine/export.xlsx'}` +
+      `?show=${show}`;
+  }
+
   /** GET /api/tasks: everyone's tasks with their owners (risk managers and admins). */
   everyoneTasks(query: Partial<MyTasksQuery> = {}): Observable<MyTasksDto> {
     const params = query.show ? new HttpParams().set('show', query.show) : new HttpParams();
