@@ -84,6 +84,23 @@ describe('MyTasksPage', () => {
     expect(button(waiting, 'Mark done')).toBeUndefined();
   });
 
+  it('filters the rows by the words typed, and says when none matches', async () => {
+    await open();
+    const box = root.querySelector<HTMLInputElement>('.tasks__search input')!;
+    box.value = 'CASTER audit';
+    box.dispatchEvent(new Event('input'));
+    await settle();
+    expect(titles()).toEqual(['Audit the caster']);
+    box.value = 'S-2-SHARED-A frame';
+    box.dispatchEvent(new Event('input'));
+    await settle();
+    expect(titles()).toEqual(['Sign the frame contract']);
+    box.value = 'nothing like it';
+    box.dispatchEvent(new Event('input'));
+    await settle();
+    expect(words(root.querySelector('.tasks__empty'))).toBe('No task matches "nothing like it".');
+  });
+
   it('sorts by a column header', async () => {
     await open();
     const header = [...root.querySelectorAll<HTMLElement>('th .mat-sort-header-container')]

@@ -11,7 +11,9 @@ import {
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { MatAnchor, MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
+import { MatFormField, MatLabel, MatPrefix } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
+import { MatInput } from '@angular/material/input';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSort, MatSortHeader } from '@angular/material/sort';
@@ -70,6 +72,12 @@ export function taskSortValue(task: MyTaskDto, column: string): string | number 
   }
 }
 
+/** The words a task is found by in the page's filter box (lower case). */
+export function taskSearchText(task: MyTaskDto): string {
+  return [task.title, task.owner?.name ?? '', task.plan.entry.title, task.plan.entry.supplierCode,
+    `plan ${task.plan.id}`, `no. ${task.plan.entry.id}`].join(' ').toLowerCase();
+}
+
 /**
  * My tasks: the tasks of plans assigned to the signed-in person, overdue first (and marked),
  * with their plan and register entry a click away, "Mark done" and a status menu; open tasks,
@@ -85,7 +93,11 @@ export function taskSortValue(task: MyTaskDto, column: string): string | number 
     MatButton,
     MatButtonToggle,
     MatButtonToggleGroup,
+    MatFormField,
     MatIcon,
+    MatInput,
+    MatLabel,
+    MatPrefix,
     MatProgressBar,
     MatSort,
     MatSortHeader,
@@ -125,17 +137,26 @@ export class MyTasksPage implements AfterViewInit {
   protected readonly errorMessage = signal<string | null>(null);
   protected readonly tasks = new MatTableDataSource<MyTaskDto>([]);
   protected readonly count = signal(0);
+  protected readonly searchText = signal('');
   /** The list request in flight: a newer one replaces it, so answers never arrive out of order. */
   private loading: Subscription | null = null;
 
   constructor() {
     this.tasks.sortingDataAccessor = taskSortValue;
+    this.tasks.filterPredicate = (task, filter) => filter.split(/\s+/)
+      .every((word) => taskSearchText(task).includes(word));
     // Loads on the first reading of the address and again whenever a filter changes it.
     this.route.queryParamMap.pipe(takeUntilDestroyed()).subscribe(() => this.load());
   }
 
   ngAfterViewInit(): void {
     this.tasks.sort = this.sort();
+  }
+
+  /** Keeps the rows whose task, owner, entry or supplier holds every word typed. */
+  protected search(text: string): void {
+    this.searchText.set(text);
+    this.tasks.filter = text.trim().toLowerCase();
   }
 
   protected show(filter: TaskFilter): void {
