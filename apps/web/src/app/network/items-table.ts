@@ -2,17 +2,16 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { toObservable } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
-import { MatOption } from '@angular/material/core';
 import { MatFormField, MatLabel, MatPrefix } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatPaginator } from '@angular/material/paginator';
 import { MatProgressBar } from '@angular/material/progress-bar';
-import { MatSelect } from '@angular/material/select';
 import { MatSort, MatSortHeader } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { ITEM_SORT_FIELDS, type ListItemsQuery, type NetworkItemDto } from '@keelson/contracts';
+import { FilterSelect, codeNameOptions, valueOptions } from '../shared/filter-select';
 import { plantOptions } from './filter-options';
 import { NetworkBrowseApi } from './network-browse-api';
 import { pagedRows } from './paged-rows';
@@ -30,17 +29,16 @@ import { NETWORK_PAGE_SIZES, urlTableState } from './url-table-state';
   selector: 'kl-items-table',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
+    FilterSelect,
     MatButton,
     MatCheckbox,
     MatFormField,
     MatIcon,
     MatInput,
     MatLabel,
-    MatOption,
     MatPaginator,
     MatPrefix,
     MatProgressBar,
-    MatSelect,
     MatSort,
     MatSortHeader,
     MatTableModule,
@@ -70,6 +68,9 @@ export class ItemsTable {
   ] as const;
   protected readonly pageSizes = NETWORK_PAGE_SIZES;
   protected readonly plants = plantOptions();
+  protected readonly plantChoices = computed(() => codeNameOptions(this.plants()));
+  protected readonly kindChoices = [{ value: 'made', label: 'Made' },
+    { value: 'bought', label: 'Bought' }];
   protected readonly hasFilter = computed(
     () => Object.keys(this.table.state().filters).length > 0,
   );

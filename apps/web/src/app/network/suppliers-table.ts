@@ -1,17 +1,16 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toObservable } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
-import { MatOption } from '@angular/material/core';
 import { MatFormField, MatLabel, MatPrefix } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatPaginator } from '@angular/material/paginator';
 import { MatProgressBar } from '@angular/material/progress-bar';
-import { MatSelect } from '@angular/material/select';
 import { MatSort, MatSortHeader } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { type ListSuppliersQuery, SUPPLIER_SORT_FIELDS } from '@keelson/contracts';
+import { FilterSelect, codeNameOptions, valueOptions } from '../shared/filter-select';
 import { countryOptions, plantOptions } from './filter-options';
 import { NetworkBrowseApi } from './network-browse-api';
 import { pagedRows } from './paged-rows';
@@ -30,16 +29,15 @@ export const TIER_CHOICES = [1, 2, 3, 4, 5, 6] as const;
   selector: 'kl-suppliers-table',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
+    FilterSelect,
     MatButton,
     MatFormField,
     MatIcon,
     MatInput,
     MatLabel,
-    MatOption,
     MatPaginator,
     MatPrefix,
     MatProgressBar,
-    MatSelect,
     MatSort,
     MatSortHeader,
     MatTableModule,
@@ -78,7 +76,12 @@ export class SuppliersTable {
   protected readonly regions = computed(() =>
     [...new Set(this.countries().map((country) => country.region))].sort(),
   );
-  protected readonly tiers = computed(() => {
+  protected readonly plantChoices = computed(() => codeNameOptions(this.plants()));
+  protected readonly countryChoices = computed(() => codeNameOptions(this.countries()));
+  protected readonly regionChoices = computed(() => valueOptions(this.regions()));
+  protected readonly tierChoices = computed(() =>
+    valueOptions(this.tiers(), (tier) => `Tier ${tier}`));
+  private readonly tiers = computed(() => {
     const chosen = Number(this.table.state().filters.tier);
     const choices: number[] = [...TIER_CHOICES];
     return Number.isInteger(chosen) && chosen > 0 && !choices.includes(chosen)

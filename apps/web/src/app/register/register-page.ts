@@ -2,14 +2,12 @@ import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toObservable } from '@angular/core/rxjs-interop';
 import { MatAnchor, MatButton } from '@angular/material/button';
-import { MatOption } from '@angular/material/core';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormField, MatLabel, MatPrefix } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatPaginator } from '@angular/material/paginator';
 import { MatProgressBar } from '@angular/material/progress-bar';
-import { MatSelect } from '@angular/material/select';
 import { MatSort, MatSortHeader } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltip } from '@angular/material/tooltip';
@@ -19,6 +17,7 @@ import { Session } from '../auth/session';
 import { plantOptions } from '../network/filter-options';
 import { pagedRows } from '../network/paged-rows';
 import { TableSearch } from '../network/table-search';
+import { FilterSelect, codeNameOptions, valueOptions } from '../shared/filter-select';
 import { NewEntryDialog } from './new-entry-dialog';
 import { RatingChip } from './rating-chip';
 import { RegisterApi } from './register-api';
@@ -50,6 +49,7 @@ import {
   selector: 'kl-register-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
+    FilterSelect,
     DatePipe,
     MatAnchor,
     MatButton,
@@ -57,11 +57,9 @@ import {
     MatIcon,
     MatInput,
     MatLabel,
-    MatOption,
     MatPaginator,
     MatPrefix,
     MatProgressBar,
-    MatSelect,
     MatSort,
     MatSortHeader,
     MatTableModule,
@@ -95,12 +93,12 @@ export class RegisterPage {
     'updatedAt',
   ] as const;
   protected readonly pageSizes = REGISTER_PAGE_SIZES;
-  protected readonly statuses = STATUSES;
-  protected readonly statusLabels = STATUS_LABELS;
-  protected readonly bands = BANDS;
-  protected readonly bandLabels = BAND_LABELS;
-  protected readonly flagChoices = Object.entries(FLAG_FILTER_LABELS);
+  protected readonly statusChoices = valueOptions(STATUSES, (status) => STATUS_LABELS[status]);
+  protected readonly bandChoices = valueOptions(BANDS, (band) => BAND_LABELS[band]);
+  protected readonly flagOptions = Object.entries(FLAG_FILTER_LABELS)
+    .map(([value, label]) => ({ value, label }));
   protected readonly plants = plantOptions();
+  protected readonly plantChoices = computed(() => codeNameOptions(this.plants()));
   protected readonly canWrite = computed(() => this.session.hasRole(...REGISTER_WRITERS));
   protected readonly hasFilter = computed(
     () => Object.keys(this.table.state().filters).length > 0,

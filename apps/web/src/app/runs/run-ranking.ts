@@ -3,7 +3,6 @@ import { ChangeDetectionStrategy, Component, computed, inject, input } from '@an
 import { toObservable } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
 import { MatChipRemove, MatChipRow, MatChipSet } from '@angular/material/chips';
-import { MatOption } from '@angular/material/core';
 import {
   MatExpansionPanel,
   MatExpansionPanelHeader,
@@ -14,7 +13,6 @@ import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatPaginator } from '@angular/material/paginator';
 import { MatProgressBar } from '@angular/material/progress-bar';
-import { MatSelect } from '@angular/material/select';
 import { MatSlideToggle } from '@angular/material/slide-toggle';
 import { MatSort, MatSortHeader } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
@@ -28,6 +26,7 @@ import { countryOptions, plantOptions } from '../network/filter-options';
 import { pagedRows } from '../network/paged-rows';
 import { TableSearch } from '../network/table-search';
 import { NETWORK_PAGE_SIZES, urlTableState } from '../network/url-table-state';
+import { FilterSelect, codeNameOptions, valueOptions } from '../shared/filter-select';
 import { RANKING_COLUMN_HELP } from './ranking-help';
 import { ratingBandClass, ratingBandLabel } from './run-labels';
 import { RunsApi, type RunSupplierQuery } from './runs-api';
@@ -41,6 +40,7 @@ export const RANKING_FILTERS = [
 
 /** Tiers offered by the tier filter. */
 const TIER_CHOICES = [1, 2, 3, 4, 5, 6] as const;
+const TIER_OPTIONS = valueOptions(TIER_CHOICES, (tier) => `Tier ${tier}`);
 
 /**
  * The single-point-of-failure ranking of one run: server-side sort on every column, filters,
@@ -51,6 +51,7 @@ const TIER_CHOICES = [1, 2, 3, 4, 5, 6] as const;
   selector: 'kl-run-ranking',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
+    FilterSelect,
     DecimalPipe,
     MatButton,
     MatChipRemove,
@@ -63,11 +64,9 @@ const TIER_CHOICES = [1, 2, 3, 4, 5, 6] as const;
     MatIcon,
     MatInput,
     MatLabel,
-    MatOption,
     MatPaginator,
     MatPrefix,
     MatProgressBar,
-    MatSelect,
     MatSlideToggle,
     MatSort,
     MatSortHeader,
@@ -96,10 +95,13 @@ export class RunRanking {
   ] as const;
   protected readonly help = RANKING_COLUMN_HELP;
   protected readonly pageSizes = NETWORK_PAGE_SIZES;
-  protected readonly bands = RATING_BANDS;
-  protected readonly tiers = TIER_CHOICES;
+  protected readonly bandChoices = valueOptions(RATING_BANDS, ratingBandLabel);
+  protected readonly tierChoices = TIER_OPTIONS;
   protected readonly plants = plantOptions();
   protected readonly countries = countryOptions();
+  protected readonly plantChoices = computed(() => codeNameOptions(this.plants()));
+  protected readonly countryChoices = computed(() => codeNameOptions(this.countries()));
+  protected readonly regionChoices = computed(() => valueOptions(this.regions()));
   protected readonly regions = computed(() =>
     [...new Set(this.countries().map((country) => country.region))].sort(),
   );
