@@ -8,6 +8,7 @@ export const keelsonAliases = {
   '@keelson/contracts': here('./libs/contracts/src/index.ts'),
   '@keelson/db': here('./libs/db/src/index.ts'),
   '@keelson/workbook/fields': here('./libs/workbook/src/fields.ts'),
+  '@keelson/workbook/testing': here('./libs/workbook/src/testing/index.ts'),
   '@keelson/workbook': here('./libs/workbook/src/index.ts'),
   '@keelson/scoring': here('./libs/scoring/src/index.ts'),
   '@keelson/supply-graph/testing': here('./libs/supply-graph/src/testing/index.ts'),

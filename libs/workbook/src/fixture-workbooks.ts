@@ -124,7 +124,7 @@ export function toCsv(rows: SheetRows): string {
   return rows.map((cells) => cells.map(quote).join(',')).join('\r\n') + '\r\n';
 }
 
-/** A zip archive (deflated) of named files. */
-export function buildZip(files: Record<string, Uint8Array>): Uint8Array {
-  return zipSync(files, { level: 6 });
+/** A zip archive (deflated at `level`) of named files. */
+export function buildZip(files: Record<string, Uint8Array>, level: 6 | 9 = 6): Uint8Array {
+  return zipSync(files, { level });
 }

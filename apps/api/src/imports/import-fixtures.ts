@@ -1,79 +1,16 @@
 /**
- * Fixtures of the import specs, built in code so no binary file is committed: a small network
- * written by hand for these tests (the same shape as libs/workbook's own spec fixture: two
- * plants, two products, a three-line BOM, three suppliers with one sub-tier purchase, accented
- * and CJK names), .xlsx and zip builders, an upload helper and the `network_*` row counts.
+ * Fixtures of the import specs, built in code so no binary file is committed: the small
+ * hand-made network and the .xlsx and zip builders of `@keelson/workbook/testing` (two plants,
+ * two products, a three-line BOM, three suppliers with one sub-tier purchase, accented and CJK
+ * names), a zip bomb, an upload helper, workbook downloads and the `network_*` row counts.
  */
 import { crc32 } from 'node:zlib';
-import ExcelJS from 'exceljs';
-import { deflateSync, zipSync } from 'fflate';
+import { deflateSync } from 'fflate';
 import request from 'supertest';
 import type { TestApp } from '../testing/test-app';
 
-/** A sheet's cells, row by row from row 1; null leaves a cell empty. */
-export type SheetRows = ExcelJS.CellValue[][];
-
-/** The small network's sheets, headers in row 1 as the template writes them. */
-export function smallNetworkSheets(): Record<string, SheetRows> {
-  return {
-    Plants: [
-      ['plant_code', 'plant_name', 'country'],
-      ['P1', 'Augsburg', 'DE'],
-      ['P2', 'Suzhou', 'CN'],
-    ],
-    Products: [
-      ['product_code', 'plant_code', 'product_name', 'weekly_revenue'],
-      ['F1', 'P1', 'Pump housing', 1000],
-      ['F2', 'P2', 'Valve', 2500],
-    ],
-    BOM: [
-      ['parent_code', 'child_code', 'qty_per'],
-      ['F1', 'A', 2],
-      ['A', 'C1', null],
-      ['F2', 'B', 3],
-    ],
-    Suppliers: [
-      ['supplier_code', 'supplier_name', 'country', 'region', 'recovery_weeks',
-        'financial_health', 'delivery_score', 'has_continuity_plan'],
-      ['S1', 'Müller Guss GmbH', 'DE', 'Bavaria', 12, 4, 5, 'yes'],
-      ['S2', '苏州精密', 'CN', 'Jiangsu', null, null, 3, 'no'],
-      ['S3', 'Raw Metals', 'PL', '', 6, 2, null, null],
-    ],
-    Sourcing: [
-      ['buyer_code', 'item_code', 'supplier_code', 'share_pct', 'qualified'],
-      ['P1', 'C1', 'S1', 60, 'yes'],
-      ['P1', 'C1', 'S2', 40, 'no'],
-      ['P2', 'B', 'S2', null, null],
-      ['S1', 'R1', 'S3', 100, 'y'],
-    ],
-    Stock: [
-      ['plant_code', 'item_code', 'weeks_of_cover'],
-      ['P1', 'C1', 2.5],
-    ],
-  };
-}
-
-/** An .xlsx with the given sheets, in the given order. */
-export async function buildXlsx(sheets: Record<string, SheetRows>): Promise<Uint8Array> {
-  const workbook = new ExcelJS.Workbook();
-  for (const [name, rows] of Object.entries(sheets)) {
-    const worksheet = workbook.addWorksheet(name);
-    rows.forEach((cells, index) => {
-      const row = worksheet.getRow(index + 1);
-      cells.forEach((value, column) => {
-        if (value !== undefined && value !== null) {
-          row.getCell(column + 1).value = value;
-        }
-      });
-    });
-  }
-  return new Uint8Array((await workbook.xlsx.writeBuffer()) as ArrayBuffer);
-}
-
-/** A zip archive (deflated) of named files. */
-export function buildZip(files: Record<string, Uint8Array>, level: 6 | 9 = 6): Uint8Array {
-  return zipSync(files, { level });
-}
+export { buildXlsx, buildZip, smallNetworkSheets, type SheetRows } from '@keelson/workbook/testing';
+export { bearer, downloadWorkbook } from '../testing/workbook-download';
 
 /**
  * A zip bomb: `count` entries that each inflate to `entryBytes` zeros, deflated once and the
@@ -161,26 +98,4 @@ export function upload(
     call = call.field(name, value);
   }
   return call.attach('file', Buffer.from(data), fileName);
-}
-
-/** GETs an .xlsx download and opens it; returns the response and the workbook. */
-export async function downloadWorkbook(t: TestApp, path: string, email = 'buyer@demo.test') {
-  const response = await request(t.app).get(path).set(bearer(t, email)).buffer(true)
-    .parse((res, done) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (chunk: Buffer) => chunks.push(chunk));
-      res.on('end', () => done(null, Buffer.concat(chunks)));
-    });
-  const workbook = new ExcelJS.Workbook();
-  if (response.status === 200) {
-    const bytes = response.body as Buffer;
-    await workbook.xlsx.load(bytes.buffer.slice(bytes.byteOffset,
-      bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
-  }
-  return { response, workbook };
-}
-
-/** A Bearer header of a demo account. */
-export function bearer(t: TestApp, email = 'buyer@demo.test'): Record<string, string> {
-  return { Authorization: `Bearer ${t.tokenFor(email)}` };
 }

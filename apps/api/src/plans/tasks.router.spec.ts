@@ -3,11 +3,11 @@
  * draft or rejected and worked on once it is approved (by the owner, a risk manager or an
  * administrator), deletion, comments with their audit record, and the order of my tasks.
  */
-import ExcelJS from 'exceljs';
-import request from 'supertest';
+import type ExcelJS from 'exceljs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { MyTasksDto, PlanDto, PlanTaskDetailDto } from '@keelson/contracts';
 import { ACCOUNT_OF_ROLE } from '../testing/test-app';
+import { downloadWorkbook } from '../testing/workbook-download';
 import { createPlanTestApp, type PlanTestApp } from './plan-test-setup';
 
 let s: PlanTestApp;
@@ -280,23 +280,12 @@ describe('GET /api/tasks', () => {
 
 /** Downloads a task workbook and reads its "Tasks" rows and "About" lines back with exceljs. */
 async function download(account: 'risk' | 'buyer', path: string) {
-  const response = await request(s.t.app).get(path)
-    .set({ Authorization: `Bearer ${s.t.tokenFor(ACCOUNT_OF_ROLE[account === 'risk'
-      ? 'risk_manager' : 'buyer'])}` })
-    .buffer(true)
-    .parse((res, done) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (chunk: Buffer) => chunks.push(chunk));
-      res.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+  const { response, workbook } = await downloadWorkbook(s.t, path,
+    ACCOUNT_OF_ROLE[account === 'risk' ? 'risk_manager' : 'buyer']);
   expect(response.status).toBe(200);
   expect(response.headers['content-type']).toContain('spreadsheetml');
   const fileName = /filename="?([^";]+)"?/
     .exec(String(response.headers['content-disposition']))![1];
-  const workbook = new ExcelJS.Workbook();
-  const bytes = response.body as Buffer;
-  await workbook.xlsx.load(
-    bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
   const sheet = workbook.getWorksheet('Tasks')!;
   const header = (sheet.getRow(1).values as ExcelJS.CellValue[]).slice(1).map(String);
   const rows: Record<string, string>[] = [];
