@@ -113,8 +113,13 @@ describe('a mitigation plan from draft to approval', () => {
 
       // 7b. An e-mail the mail server refused until the outbox gave up (written here, as an
       // SMTP outage would leave it) is listed with its error and goes out on "Send them now".
+      // The administrator's home page says so first, and leads to Sent mail.
       giveUpOnAnEmail(server.databasePath);
-      await page.getByRole('button', { name: 'Refresh' }).click();
+      await page.goto(`${server.url}/`);
+      await page.getByText('E-mail not sent yet').waitFor({ timeout: 15_000 });
+      await fullPageShot(page, 'home-mail-not-sent');
+      await page.getByRole('link', { name: 'See them and send them now' }).click();
+      await page.waitForURL(/\/admin\/mail$/);
       const unsent = page.getByRole('table', { name: 'E-mails not sent yet' });
       await expect.poll(() => unsent.textContent(), { timeout: 15_000 })
         .toContain('Given up after 6 tries');

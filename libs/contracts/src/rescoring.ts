@@ -203,6 +203,11 @@ export interface DashboardDto {
   /** Plant managers: their plants' top register entries. */
   topRisks: { id: number; title: string; supplierCode: string; rating: number;
     ratingBand: RatingBand; plants?: string[] }[] | null;
+  /**
+   * Administrators: notification e-mails the mail server has not taken yet, waiting to be tried
+   * again (`pending`) or given up (`failed`); both 0 when all went out.
+   */
+  unsentMail?: { pending: number; failed: number } | null;
   /** Buyers: the last import and its warnings. */
   lastImport: { id: number; fileName: string; status: string; warningCount: number;
     errorCount: number; createdAt: string } | null;

@@ -8,6 +8,7 @@ import type { RatingBand, RescoringStatus, RescoringSummaryDto } from '@keelson/
 import {
   analysisRuns,
   importBatches,
+  mailOutbox,
   mitigationPlans,
   networkVersions,
   planDecisions,
@@ -161,6 +162,14 @@ export class DashboardRepository {
     return this.db.select({ id: b.id, fileName: b.fileName, status: b.status,
       warningCount: b.warningCount, errorCount: b.errorCount, createdAt: b.createdAt })
       .from(b).orderBy(desc(b.createdAt), desc(b.id)).limit(1).get() ?? null;
+  }
+
+  /** Notification e-mails not sent yet, waiting and given up. */
+  unsentMail(): { pending: number; failed: number } {
+    const rows = this.db.select({ status: mailOutbox.status, count: count() }).from(mailOutbox)
+      .where(inArray(mailOutbox.status, ['pending', 'failed'])).groupBy(mailOutbox.status).all();
+    const of = (status: string) => rows.find((row) => row.status === status)?.count ?? 0;
+    return { pending: of('pending'), failed: of('failed') };
   }
 
   /** The entry has one of `plants` (no condition for null). */

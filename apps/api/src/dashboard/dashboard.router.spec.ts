@@ -141,6 +141,24 @@ describe('GET /api/dashboard', () => {
       plansAwaitingApproval: 5, overdueTasks: 3, myOverdueTasks: 0,
       lastImport: { id: lastBatchId, warningCount: 2, errorCount: 3 } });
     expect(body.lastRun?.id).toBe(runId);
+    expect(body.unsentMail).toEqual({ pending: 0, failed: 0 });
+  });
+
+  it('counts for administrators the e-mails the mail server has not taken', async () => {
+    const { sqlite } = t.database;
+    const insert = sqlite.prepare(`insert into mail_outbox (kind, to_addresses, subject, text,
+      html, status, attempts, next_attempt_at, created_at) values ('digest', '["a@demo.test"]',
+      's', 't', 'h', ?, 1, '2026-03-02T10:00:00.000Z', '2026-03-02T09:00:00.000Z')`);
+    const ids = ['pending', 'pending', 'failed', 'sent']
+      .map((status) => Number(insert.run(status).lastInsertRowid));
+    try {
+      expect((await dashboardOf(ACCOUNT_OF_ROLE.admin)).unsentMail)
+        .toEqual({ pending: 2, failed: 1 });
+      // Only administrators see (and can act on) the outbox.
+      expect((await dashboardOf(ACCOUNT_OF_ROLE.risk_manager)).unsentMail).toBeNull();
+    } finally {
+      sqlite.prepare(`delete from mail_outbox where id in (${ids.join(',')})`).run();
+    }
   });
 
   it('counts the overdue tasks the figures link to: everyone\'s and the person\'s own',
@@ -190,7 +208,7 @@ describe('GET /api/dashboard', () => {
     const body = await dashboardOf(ACCOUNT_OF_ROLE.buyer);
     expect(body).toEqual({ role: 'buyer', hasNetwork: true, openEntriesByBand: null,
       entriesByStatus: null, lastRun: null, lastRescoring: null, plansAwaitingApproval: null,
-      overdueTasks: null, myOverdueTasks: null, topRisks: null,
+      overdueTasks: null, myOverdueTasks: null, unsentMail: null, topRisks: null,
       lastImport: { id: lastBatchId, fileName: 'suppliers-march.xlsx', status: 'rejected',
         warningCount: 2, errorCount: 3, createdAt: '2026-03-02T09:30:00.000Z' } });
   });

@@ -39,6 +39,7 @@ export class DashboardService {
       plansAwaitingApproval: null,
       overdueTasks: null,
       myOverdueTasks: null,
+      unsentMail: null,
       topRisks: null,
       lastImport: null,
     };
@@ -50,7 +51,10 @@ export class DashboardService {
       dto.plansAwaitingApproval = repository.submittedPlans();
       dto.overdueTasks = repository.overdueTasks({ today });
       dto.myOverdueTasks = repository.overdueTasks({ today, ownerId: user.id });
-      if (role === 'admin') dto.lastImport = repository.lastImport();
+      if (role === 'admin') {
+        dto.lastImport = repository.lastImport();
+        dto.unsentMail = repository.unsentMail();
+      }
     } else if (role === 'plant_manager') {
       const plants = plantScopeOf(user) ?? [];
       Object.assign(dto, this.bands(plants));

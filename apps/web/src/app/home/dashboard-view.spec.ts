@@ -42,6 +42,17 @@ const linksOf = (card: DashboardCard): DashboardLink[] => [
 ];
 
 describe('dashboardCards', () => {
+  it('puts e-mail the mail server refused first for an administrator, linked to Sent mail',
+    () => {
+      const cards = dashboardCards({ ...RISK, unsentMail: { pending: 2, failed: 1 } }, 'admin');
+      expect(cards[0]!.id).toBe('mail');
+      expect(cards[0]!.figures.map((f) => [f.value, f.label, url(f.link)])).toEqual([
+        [2, 'e-mails waiting to be tried again', '/admin/mail'],
+        [1, 'e-mail given up', '/admin/mail']]);
+      expect(dashboardCards({ ...RISK, unsentMail: { pending: 0, failed: 0 } }, 'admin')
+        .map((card) => card.id)).not.toContain('mail');
+    });
+
   it('gives a risk manager the register, approvals, tasks, the last run and re-scoring', () => {
     const cards = dashboardCards(RISK, 'risk_manager');
     expect(cards.map((card) => card.id))

@@ -45,7 +45,7 @@ export interface EmptyState {
 /** One card of the dashboard. */
 export interface DashboardCard {
   readonly id: 'network' | 'register' | 'run' | 'rescoring' | 'approvals' | 'tasks' | 'risks'
-    | 'import';
+    | 'import' | 'mail';
   readonly icon: string;
   readonly title: string;
   /** What the figures are, in one sentence. */
@@ -80,6 +80,9 @@ const plural = (count: number, one: string, many = `${one}s`) => (count === 1 ? 
  */
 export function dashboardCards(dto: DashboardDto, role: Role): DashboardCard[] {
   const cards: DashboardCard[] = [];
+  // E-mail the mail server refused first: owners are not being told what changed.
+  const unsent = dto.unsentMail;
+  if (unsent && unsent.pending + unsent.failed > 0) cards.push(mailCard(unsent));
   if (!dto.hasNetwork) cards.push(networkCard(role));
   const register = dto.openEntriesByBand ? registerCard(dto, role) : null;
   const approvals = dto.plansAwaitingApproval !== null && DECIDERS.includes(role)
@@ -99,6 +102,22 @@ export function dashboardCards(dto: DashboardDto, role: Role): DashboardCard[] {
 
 const present = (...cards: (DashboardCard | null)[]): DashboardCard[] =>
   cards.filter((card): card is DashboardCard => card !== null);
+
+function mailCard(unsent: { pending: number; failed: number }): DashboardCard {
+  const link: DashboardLink = { path: '/admin/mail' };
+  return {
+    id: 'mail', icon: 'schedule_send', title: 'E-mail not sent yet',
+    note: 'Notification e-mails the mail server did not take: waiting ones are tried again ' +
+      'on their own; given-up ones go out when you send them again from Sent mail.',
+    figures: [
+      ...(unsent.pending > 0 ? [{ value: unsent.pending,
+        label: `${plural(unsent.pending, 'e-mail')} waiting to be tried again`, link }] : []),
+      ...(unsent.failed > 0 ? [{ value: unsent.failed,
+        label: `${plural(unsent.failed, 'e-mail')} given up`, link }] : []),
+    ],
+    more: { ...link, label: 'See them and send them now' },
+  };
+}
 
 function networkCard(role: Role): DashboardCard {
   const imports = IMPORTERS.includes(role);
