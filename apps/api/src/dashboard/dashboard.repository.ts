@@ -8,7 +8,6 @@ import type { RatingBand, RescoringStatus, RescoringSummaryDto } from '@keelson/
 import {
   analysisRuns,
   importBatches,
-  mailOutbox,
   mitigationPlans,
   networkVersions,
   planDecisions,
@@ -18,6 +17,7 @@ import {
   rescoringRuns,
   type KeelsonDatabase,
 } from '@keelson/db';
+import { unsentMailCounts, type MailOutboxCounts } from '../mail/mail-outbox';
 import { overdueTaskCondition } from '../plans/overdue-tasks';
 
 /** The register statuses the dashboard counts as live risks. */
@@ -165,11 +165,8 @@ export class DashboardRepository {
   }
 
   /** Notification e-mails not sent yet, waiting and given up. */
-  unsentMail(): { pending: number; failed: number } {
-    const rows = this.db.select({ status: mailOutbox.status, count: count() }).from(mailOutbox)
-      .where(inArray(mailOutbox.status, ['pending', 'failed'])).groupBy(mailOutbox.status).all();
-    const of = (status: string) => rows.find((row) => row.status === status)?.count ?? 0;
-    return { pending: of('pending'), failed: of('failed') };
+  unsentMail(): MailOutboxCounts {
+    return unsentMailCounts(this.db);
   }
 
   /** The entry has one of `plants` (no condition for null). */

@@ -39,6 +39,15 @@ export interface MailOutboxCounts {
   failed: number;
 }
 
+/** Waiting and given-up messages of `db`'s outbox, counted (also for the home dashboard). */
+export function unsentMailCounts(db: KeelsonDatabase): MailOutboxCounts {
+  const rows = db.select({ status: mailOutbox.status, count: sql<number>`count(*)` })
+    .from(mailOutbox).where(inArray(mailOutbox.status, ['pending', 'failed']))
+    .groupBy(mailOutbox.status).all();
+  const of = (status: string) => rows.find((row) => row.status === status)?.count ?? 0;
+  return { pending: of('pending'), failed: of('failed') };
+}
+
 /** Writes, sends and re-sends notification e-mails. */
 export class MailOutbox {
   private readonly delays: readonly number[];
@@ -102,11 +111,7 @@ export class MailOutbox {
 
   /** Waiting and given-up messages, counted. */
   counts(): MailOutboxCounts {
-    const rows = this.deps.db.select({ status: mailOutbox.status, count: sql<number>`count(*)` })
-      .from(mailOutbox).where(inArray(mailOutbox.status, ['pending', 'failed']))
-      .groupBy(mailOutbox.status).all();
-    const of = (status: string) => rows.find((row) => row.status === status)?.count ?? 0;
-    return { pending: of('pending'), failed: of('failed') };
+    return unsentMailCounts(this.deps.db);
   }
 
   /** Messages not sent yet (waiting or given up), oldest first. */

@@ -1,9 +1,8 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { pageQuerySchema } from '@keelson/contracts';
+import { pageQuerySchema, type MailOutboxDto, type MailOutboxSentDto } from '@keelson/contracts';
 import { parseInput } from '../http/parse-input';
 import { route } from '../http/route';
-import type { MailOutboxDto, MailOutboxSentDto } from '@keelson/contracts';
 import type { MailOutbox } from './mail-outbox';
 import type { MailService } from './mail.service';
 

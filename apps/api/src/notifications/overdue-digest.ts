@@ -17,7 +17,7 @@ import type {
   NotificationsRepository,
   OverdueTaskRow,
 } from './notifications.repository';
-import { sendEach, wantsMail } from './plan-notifier';
+import { wantsMail } from './plan-notifier';
 
 /** What {@link sendOverdueDigest} needs. */
 export interface OverdueDigestDeps {
@@ -64,7 +64,7 @@ export async function sendOverdueDigest(
       today,
       publicUrl,
     }));
-  const sent = await sendEach(deps.outbox, 'digest', messages);
+  const sent = await deps.outbox.send('digest', messages);
   deps.logger.info({ recipients: sent, overdueTasks: overdue.length, today },
     'sent the digest of overdue tasks');
   return { recipients: sent, overdueTasks: overdue.length };

@@ -37,19 +37,6 @@ export function wantsMail(recipient: MailRecipient, kind: MailKind): boolean {
   return recipient.isActive && !recipient.unsubscribed.includes(kind);
 }
 
-/**
- * Writes `messages` to the outbox and sends them one by one; one the server refuses stays in
- * the outbox to be tried again, and the others still go out. Resolves to how many the SMTP
- * server accepted now.
- */
-export async function sendEach(
-  outbox: MailOutbox,
-  kind: MailKind,
-  messages: readonly OutgoingMail[],
-): Promise<number> {
-  return outbox.send(kind, messages);
-}
-
 /** Builds the listener. */
 export function createPlanNotifier(deps: PlanNotifierDeps): PlanNotifier {
   const { repository, outbox, logger } = deps;
@@ -59,7 +46,7 @@ export function createPlanNotifier(deps: PlanNotifierDeps): PlanNotifier {
     try {
       const job: Promise<void> = Promise.resolve()
         .then(async () => {
-          await sendEach(outbox, kind, build());
+          await outbox.send(kind, build());
         })
         .catch((error: unknown) => {
           logger.error({ err: error, kind, event }, 'could not prepare notification e-mails');

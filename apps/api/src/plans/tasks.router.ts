@@ -31,26 +31,20 @@ export function createTasksRouter(tasks: TasksService): Router {
       res.json(tasks.mine(sessionUser(req), query));
     },
   });
-  route(router, {
-    method: 'get',
-    path: '/mine/export.xlsx',
-    roles: SIGNED_IN,
-    handler: async (req, res) => {
-      const query = parseInput(myTasksQuerySchema, req.query, 'query');
-      const { bytes, fileName } = await tasks.exportWorkbook(sessionUser(req), 'mine', query);
-      sendXlsx(res, bytes, fileName);
-    },
-  });
-  route(router, {
-    method: 'get',
-    path: '/export.xlsx',
-    roles: PLAN_WRITERS,
-    handler: async (req, res) => {
-      const query = parseInput(myTasksQuerySchema, req.query, 'query');
-      const { bytes, fileName } = await tasks.exportWorkbook(sessionUser(req), 'everyone', query);
-      sendXlsx(res, bytes, fileName);
-    },
-  });
+  const exports = [['/mine/export.xlsx', SIGNED_IN, 'mine'],
+    ['/export.xlsx', PLAN_WRITERS, 'everyone']] as const;
+  for (const [path, roles, whose] of exports) {
+    route(router, {
+      method: 'get',
+      path,
+      roles,
+      handler: async (req, res) => {
+        const query = parseInput(myTasksQuerySchema, req.query, 'query');
+        const { bytes, fileName } = await tasks.exportWorkbook(sessionUser(req), whose, query);
+        sendXlsx(res, bytes, fileName);
+      },
+    });
+  }
   route(router, {
     method: 'get',
     path: '/',

@@ -117,11 +117,10 @@ export class MyTasksPage implements AfterViewInit {
 
   /** Risk managers and administrators follow every plant's plans, so everyone's tasks. */
   protected readonly mayListEveryone = inject(Session).hasRole('risk_manager', 'admin');
-  private readonly filters = toSignal(this.route.queryParamMap, { requireSync: true });
-  protected readonly filter = computed(() => readTaskFilters(this.filters(),
-    this.mayListEveryone).show);
-  protected readonly whose = computed(() => readTaskFilters(this.filters(),
-    this.mayListEveryone).whose);
+  private readonly params = toSignal(this.route.queryParamMap, { requireSync: true });
+  private readonly filters = computed(() => readTaskFilters(this.params(), this.mayListEveryone));
+  protected readonly filter = computed(() => this.filters().show);
+  protected readonly whose = computed(() => this.filters().whose);
   protected readonly exportUrl = computed(() =>
     this.plansApi.tasksExportUrl(this.whose(), this.filter()));
   protected readonly title = computed(() => (this.whose() === 'everyone'
